@@ -1,0 +1,58 @@
+/** The CLI's NotebookHost: data files from disk, confined to the notebook root (real paths). */
+import * as fs from 'node:fs';
+import * as path from 'node:path';
+import type { DataFileRead, NotebookHost } from '../core/index.js';
+
+export class FileHost implements NotebookHost {
+  private readonly realRoot: string;
+
+  constructor(readonly root: string) {
+    this.realRoot = fs.realpathSync(root);
+  }
+
+  readDataFile(relative: string, maxBytes: number): DataFileRead {
+    const full = path.join(this.root, ...relative.split('/'));
+    let real: string;
+    try {
+      real = fs.realpathSync(full);
+    } catch {
+      return { ok: false, reason: 'missing' };
+    }
+    const rel = path.relative(this.realRoot, real);
+    if (rel.startsWith('..') || path.isAbsolute(rel)) return { ok: false, reason: 'outside-root' };
+    try {
+      const stat = fs.statSync(real);
+      if (!stat.isFile()) return { ok: false, reason: 'unreadable', detail: 'not a regular file' };
+      if (stat.size > maxBytes) return { ok: false, reason: 'too-large', size: stat.size };
+      return { ok: true, text: fs.readFileSync(real, 'utf8') };
+    } catch (e) {
+      return { ok: false, reason: 'unreadable', detail: e instanceof Error ? e.message : String(e) };
+    }
+  }
+}
+
+const SKIP_DIRS = new Set(['node_modules', '.git', 'dist', 'out']);
+
+/** Every markdown file below a root, root-relative with `/`, sorted. Hidden folders are skipped. */
+export function markdownFiles(root: string): string[] {
+  const out: string[] = [];
+  const walk = (dir: string, rel: string): void => {
+    let entries: fs.Dirent[];
+    try {
+      entries = fs.readdirSync(dir, { withFileTypes: true });
+    } catch {
+      return;
+    }
+    for (const e of entries) {
+      if (e.name.startsWith('.')) continue;
+      const childRel = rel ? `${rel}/${e.name}` : e.name;
+      if (e.isDirectory()) {
+        if (!SKIP_DIRS.has(e.name)) walk(path.join(dir, e.name), childRel);
+      } else if (e.isFile() && /\.(md|markdown)$/i.test(e.name)) {
+        out.push(childRel);
+      }
+    }
+  };
+  walk(root, '');
+  return out.sort();
+}

@@ -1,0 +1,148 @@
+/**
+ * The `vitrine` command line: a thin host over the core.
+ *
+ *   vitrine check PATH... [--summary]   file:line:col: severity: message [code]
+ *   vitrine analyze PATH... --json      the results contract of DESIGN.md
+ *
+ * A directory is a notebook root (every .md below it); a file is analysed with the other
+ * markdown files of its folder as its root, so its references resolve.
+ * Exit status: 0 no errors (warnings allowed), 1 errors found, 2 usage or internal failure.
+ */
+import * as fs from 'node:fs';
+import * as path from 'node:path';
+import { Notebook, formatDiagnosticLine, summarise, toJsonReport, type JsonReport, type NotebookReport } from '../core/index.js';
+import { FileHost, markdownFiles } from './fileHost.js';
+import { summaryTable } from './summaryTable.js';
+
+const USAGE = `usage: vitrine <command> PATH... [options]
+
+commands:
+  check PATH...            check notebooks; print file:line:col: severity: message [code]
+  analyze PATH... --json   print every result and diagnostic as JSON
+
+options:
+  --summary                with check: print a table of the figures of merit per film
+  --quiet                  with check: print errors only
+  -h, --help               show this help
+  --version                print the version
+
+A directory is a notebook root: every .md file below it is read and references are resolved
+across them. Exit status: 0 no errors, 1 errors found, 2 usage or internal failure.`;
+
+export interface CliIo {
+  readonly out: (text: string) => void;
+  readonly err: (text: string) => void;
+  readonly cwd: string;
+}
+
+class UsageError extends Error {}
+
+interface RootRun {
+  readonly root: string;
+  readonly report: NotebookReport;
+}
+
+function loadRoot(root: string, only: string[] | null): RootRun {
+  const host = new FileHost(root);
+  const notebook = new Notebook(host);
+  for (const rel of markdownFiles(root)) {
+    try {
+      notebook.setFile(rel, fs.readFileSync(path.join(root, ...rel.split('/')), 'utf8'));
+    } catch (e) {
+      notebook.setUnreadable(rel, e instanceof Error ? e.message : String(e));
+    }
+  }
+  return { root, report: notebook.analyze(only ?? undefined) };
+}
+
+/** Groups the PATH arguments into notebook roots. */
+function runs(paths: readonly string[], cwd: string): RootRun[] {
+  const byRoot = new Map<string, string[] | null>();
+  for (const p of paths) {
+    const abs = path.resolve(cwd, p);
+    let stat: fs.Stats;
+    try {
+      stat = fs.statSync(abs);
+    } catch {
+      throw new UsageError(`${p}: no such file or folder`);
+    }
+    if (stat.isDirectory()) {
+      byRoot.set(abs, null);
+    } else {
+      const root = path.dirname(abs);
+      const rel = path.basename(abs);
+      const list = byRoot.get(root);
+      if (list === null) continue;
+      byRoot.set(root, [...(list ?? []), rel]);
+    }
+  }
+  return [...byRoot.entries()].map(([root, only]) => loadRoot(root, only));
+}
+
+function displayPath(root: string, rel: string, cwd: string): string {
+  const shown = path.relative(cwd, path.join(root, ...rel.split('/')));
+  return shown.split(path.sep).join('/');
+}
+
+export function runCli(argv: readonly string[], io: CliIo): number {
+  try {
+    return dispatch(argv, io);
+  } catch (e) {
+    if (e instanceof UsageError) {
+      io.err(`vitrine: ${e.message}\n\n${USAGE}\n`);
+      return 2;
+    }
+    io.err(`vitrine: internal error: ${e instanceof Error ? e.message : String(e)}\n`);
+    return 2;
+  }
+}
+
+function dispatch(argv: readonly string[], io: CliIo): number {
+  const args = [...argv];
+  if (args.length === 0 || args.includes('-h') || args.includes('--help')) {
+    io.out(USAGE + '\n');
+    return args.length === 0 ? 2 : 0;
+  }
+  if (args.includes('--version')) {
+    io.out('vitrine 0.1.0\n');
+    return 0;
+  }
+  const command = args.shift();
+  const flags = new Set(args.filter((a) => a.startsWith('-')));
+  const paths = args.filter((a) => !a.startsWith('-'));
+  const known = command === 'check' ? ['--summary', '--quiet'] : command === 'analyze' ? ['--json'] : [];
+  if (command !== 'check' && command !== 'analyze') throw new UsageError(`unknown command "${command ?? ''}"`);
+  for (const f of flags) if (!known.includes(f)) throw new UsageError(`unknown option "${f}" for ${command}`);
+  if (paths.length === 0) throw new UsageError(`${command} needs at least one PATH`);
+  if (command === 'analyze' && !flags.has('--json')) throw new UsageError('analyze writes JSON: add --json');
+
+  const all = runs(paths, io.cwd);
+  let errors = 0;
+  let warnings = 0;
+  const json: JsonReport = { files: [] };
+  for (const run of all) {
+    const j = toJsonReport(run.report);
+    json.files.push(...j.files);
+    for (const f of j.files) {
+      const shown = displayPath(run.root, f.path, io.cwd);
+      const diags = [...f.diagnostics, ...f.blocks.flatMap((b) => b.diagnostics)].sort((a, b) => a.line - b.line || a.column - b.column);
+      for (const d of diags) {
+        if (d.severity === 'error') errors++;
+        else if (d.severity === 'warning') warnings++;
+        if (command === 'check' && (!flags.has('--quiet') || d.severity === 'error')) io.out(formatDiagnosticLine(shown, d) + '\n');
+      }
+    }
+  }
+  if (command === 'analyze') {
+    io.out(JSON.stringify(json, null, 2) + '\n');
+  } else {
+    const fileCount = json.files.length;
+    const blockCount = json.files.reduce((n, f) => n + f.blocks.length, 0);
+    io.out(`${fileCount} file${fileCount === 1 ? '' : 's'}, ${blockCount} data block${blockCount === 1 ? '' : 's'}: ${errors} error${errors === 1 ? '' : 's'}, ${warnings} warning${warnings === 1 ? '' : 's'}\n`);
+    if (flags.has('--summary')) {
+      const rows = all.flatMap((r) => summarise(r.report));
+      io.out('\n' + (rows.length > 0 ? summaryTable(rows) : 'No films (deposition blocks) yet.') + '\n');
+    }
+  }
+  return errors > 0 ? 1 : 0;
+}

@@ -1,0 +1,32 @@
+/** The plain-text summary table the CLI prints: one row per film. */
+import type { FilmSummary, ResultValue } from '../core/index.js';
+
+function num(v: number | undefined, digits: number): string {
+  return v === undefined || !Number.isFinite(v) ? '—' : v.toFixed(digits);
+}
+
+function res(v: ResultValue | undefined, digits: number): string {
+  if (!v) return '—';
+  const u = v.uncertainty !== undefined ? ` ± ${v.uncertainty.toFixed(digits)}` : '';
+  return `${v.value.toFixed(digits)}${u}`;
+}
+
+export function summaryTable(rows: readonly FilmSummary[]): string {
+  const header = ['film', 'material', 'Tsub/K', 'Tsub/Tg', 'rate/(nm/s)', 'h/nm', 'Tg/K', 'Tonset/K', 'Tf/K', 'Δρ/ρ/%', 'S'];
+  const body = rows.map((r) => [
+    r.film,
+    r.material ?? '—',
+    num(r.tsub, 1),
+    res(r.tsubOverTg, 3),
+    num(r.rate, 3),
+    num(r.thickness, 0),
+    res(r.tg, 1),
+    res(r.tonset, 1),
+    res(r.tfictive, 1),
+    res(r.densityGain, 2),
+    r.stabilityRatio ? r.stabilityRatio.value.toExponential(2) : '—',
+  ]);
+  const widths = header.map((h, i) => Math.max(h.length, ...body.map((row) => row[i].length)));
+  const line = (cells: string[]): string => cells.map((c, i) => (i < 2 ? c.padEnd(widths[i]) : c.padStart(widths[i]))).join('  ').trimEnd();
+  return [line(header), widths.map((w) => '-'.repeat(w)).join('  '), ...body.map(line)].join('\n');
+}

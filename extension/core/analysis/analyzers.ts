@@ -1,0 +1,17 @@
+/** The analysis of each block kind. Kinds without one yet produce no results. */
+import type { BlockKind } from '../scan/blockHeader.js';
+import { NO_ANALYSIS, type Analyzer } from './context.js';
+import { analyzeDeposition } from './depositionAnalysis.js';
+import { analyzeMaterial } from './materialAnalysis.js';
+
+const none: Analyzer = () => NO_ANALYSIS;
+
+export const ANALYZERS: Readonly<Record<BlockKind, Analyzer>> = {
+  material: analyzeMaterial,
+  deposition: analyzeDeposition,
+  ramp: none,
+  isotherm: none,
+  dsc: none,
+  relaxation: none,
+  results: none,
+};

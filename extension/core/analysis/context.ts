@@ -1,0 +1,25 @@
+/**
+ * What an analysis sees: its own parsed block and the blocks it refers to, resolved through the
+ * notebook index. Analyses return results and diagnostics with spans relative to their block.
+ */
+import type { Diagnostic } from '../diagnostics/diagnostic.js';
+import type { ParsedBlock } from '../notebook/parseBlock.js';
+import type { Results } from '../results/result.js';
+
+export interface AnalysisContext {
+  /** The block with this id, if it exists and has the expected kind. */
+  lookup(id: string, kind: ParsedBlock['kind']): ParsedBlock | undefined;
+  /** Results of another block (analysed on demand, cached). */
+  resultsOf(block: ParsedBlock): Results;
+  /** Blocks of a kind that refer to a given id by a key (e.g. ramps whose film is D-17). */
+  referrers(kind: ParsedBlock['kind'], key: string, id: string): readonly ParsedBlock[];
+}
+
+export interface Analysis {
+  readonly results: Results;
+  readonly diagnostics: readonly Diagnostic[];
+}
+
+export type Analyzer = (block: ParsedBlock, ctx: AnalysisContext) => Analysis;
+
+export const NO_ANALYSIS: Analysis = { results: {}, diagnostics: [] };

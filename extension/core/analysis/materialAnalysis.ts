@@ -1,0 +1,59 @@
+/**
+ * Material results from the stated VFT parameters: `tg_vft` (τ = 100 s) and `fragility` (m at
+ * that Tg), by the identities in vft.ts. Uncertainties propagate from any "±" written on the
+ * parameters (delta method, parameters taken as uncorrelated).
+ *
+ * Policy: no `vft` map, no results; parameters outside the VFT domain give a diagnostic.
+ */
+import { at, type Diagnostic } from '../diagnostics/diagnostic.js';
+import { messages } from '../diagnostics/messages.js';
+import type { ParsedBlock } from '../notebook/parseBlock.js';
+import { result, type ResultValue } from '../results/result.js';
+import type { Analysis, AnalysisContext } from './context.js';
+import { vftDerivedUncertainty, vftFragility, vftTg, type VftParameters } from './vft.js';
+
+/** The VFT parameters written on a material block, or null when incomplete. */
+export function statedVft(block: ParsedBlock): { p: VftParameters; sd: [number, number, number] } | null {
+  const v = block.metadata.data.vft as Record<string, unknown> | undefined;
+  const A = v?.log10_tau0;
+  const B = block.quantities.get('/vft/B');
+  const T0 = block.quantities.get('/vft/T0');
+  if (typeof A !== 'number' || !B || !T0) return null;
+  return { p: { log10Tau0: A, B: B.value, T0: T0.value }, sd: [0, B.uncertainty ?? 0, T0.uncertainty ?? 0] };
+}
+
+/** The material's standard Tg as written (K), with its uncertainty. */
+export function statedTg(block: ParsedBlock): { value: number; uncertainty?: number } | null {
+  const q = block.quantities.get('/tg');
+  return q ? { value: q.value, uncertainty: q.uncertainty } : null;
+}
+
+export function analyzeMaterial(block: ParsedBlock, _ctx: AnalysisContext): Analysis {
+  const diagnostics: Diagnostic[] = [];
+  const results: Record<string, ResultValue> = {};
+  const vft = statedVft(block);
+  if (vft) {
+    const { p, sd } = vft;
+    if (!(p.B > 0)) {
+      diagnostics.push(at(messages.vftBadParameters('B must be positive'), block.spanOf('/vft/B')));
+    } else if (!(p.log10Tau0 < 2)) {
+      diagnostics.push(at(messages.vftNoTg(p.log10Tau0), block.spanOf('/vft/log10_tau0')));
+    } else {
+      const tg = vftTg(p);
+      const m = vftFragility(p);
+      const cov = [
+        [sd[0] ** 2, 0, 0],
+        [0, sd[1] ** 2, 0],
+        [0, 0, sd[2] ** 2],
+      ];
+      const u = sd.some((s) => s > 0) ? vftDerivedUncertainty(p, cov) : undefined;
+      results.tg_vft = result(tg, 'K', 'VFT parameters as stated: T0 + B/(2 − log10 τ0)', u?.tg);
+      results.fragility = result(m, '1', 'VFT parameters as stated: B·Tg/(Tg − T0)²', u?.m);
+      const stated = statedTg(block);
+      if (stated && Math.abs(stated.value - tg) > 10) {
+        diagnostics.push(at(messages.vftTgDisagrees(tg, stated.value), block.spanOf('/tg')));
+      }
+    }
+  }
+  return { results, diagnostics };
+}

@@ -1,0 +1,49 @@
+/**
+ * Diagnostics are data: a stable code, a severity the user can change, a message built in
+ * `messages.ts`, and a span in the markdown document (0-based offsets, end-exclusive).
+ */
+import type { Span } from '../text/positions.js';
+
+export type Severity = 'error' | 'warning' | 'info';
+
+/** When an editor should show it: while typing, or only once the file is saved. */
+export type DiagnosticPhase = 'typing' | 'save';
+
+/** Where else a diagnostic points, e.g. the cell of a data file. 1-based line and column. */
+export interface RelatedLocation {
+  readonly path: string;
+  readonly line: number;
+  readonly column: number;
+  readonly message: string;
+}
+
+/** What a message builder returns: everything but the place. */
+export interface Message {
+  readonly code: string;
+  readonly severity: Severity;
+  readonly message: string;
+  readonly phase?: DiagnosticPhase;
+}
+
+export interface Diagnostic extends Message {
+  readonly span: Span;
+  readonly related?: readonly RelatedLocation[];
+}
+
+export function at(message: Message, span: Span, related?: readonly RelatedLocation[]): Diagnostic {
+  return related && related.length > 0 ? { ...message, span, related } : { ...message, span };
+}
+
+/** Severity overrides from settings: a code mapped to a new severity, or 'off' to drop it. */
+export type SeverityOverrides = Readonly<Record<string, Severity | 'off'>>;
+
+export function applyOverrides(diagnostics: readonly Diagnostic[], overrides: SeverityOverrides | undefined): Diagnostic[] {
+  if (!overrides) return diagnostics.slice();
+  const out: Diagnostic[] = [];
+  for (const d of diagnostics) {
+    const o = overrides[d.code];
+    if (o === 'off') continue;
+    out.push(o ? { ...d, severity: o } : d);
+  }
+  return out;
+}

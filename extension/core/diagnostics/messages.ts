@@ -1,0 +1,134 @@
+/**
+ * Every user-facing diagnostic message, in one module. Each builder returns a stable code, a
+ * default severity and a sentence that says what is wrong and what to do. Tests assert against
+ * these builders, not against copied strings.
+ */
+import type { Message, Severity } from './diagnostic.js';
+
+function msg(code: string, severity: Severity, message: string, phase?: 'save'): Message {
+  return phase ? { code, severity, message, phase } : { code, severity, message };
+}
+
+function fmt(value: number, digits = 4): string {
+  if (!Number.isFinite(value)) return String(value);
+  const abs = Math.abs(value);
+  if (abs !== 0 && (abs < 1e-3 || abs >= 1e6)) return value.toExponential(digits - 1);
+  return String(Number(value.toPrecision(digits)));
+}
+
+export const messages = {
+  // Blocks and fences
+  blockUnclosed: (kind: string) =>
+    msg('block.unclosed', 'warning', `This ${kind} block has no closing fence, so it runs to the end of its container. Add a closing fence.`),
+  blockEmpty: (kind: string) => msg('block.empty', 'error', `This ${kind} block is empty. Write its metadata as "key: value" lines.`),
+  blockBadId: (id: string) =>
+    msg('block.bad-id', 'error', `"${id}" is not a valid id. Use letters, digits and . _ - : (starting with a letter or digit).`),
+  blockNoId: (kind: string) =>
+    msg('block.no-id', 'warning', `This ${kind} block has no id, so nothing can refer to it. Write an id after the kind, e.g. "${kind} ${kind === 'material' ? 'M-1' : 'D-1'}".`),
+  blockExtraInfo: (text: string) =>
+    msg('block.extra-info', 'warning', `Text after the id is ignored: "${text}". The info string is the block kind and one id.`),
+  duplicateId: (id: string, where: string) => msg('block.duplicate-id', 'error', `The id "${id}" is already used at ${where}. Ids must be unique across the notebook.`),
+
+  // YAML
+  yamlSyntax: (detail: string) => msg('yaml.syntax', 'error', `The metadata is not valid YAML: ${detail}`),
+  yamlNotMap: () => msg('yaml.not-a-map', 'error', 'The metadata must be a list of "key: value" lines.'),
+
+  // Schema
+  missingRequired: (key: string, kind: string, hint: string) =>
+    msg('meta.missing-required', 'error', `The ${kind} block needs "${key}"${hint ? ` (${hint})` : ''}.`),
+  missingRecommended: (key: string, kind: string, why: string) =>
+    msg('meta.missing-recommended', 'warning', `The ${kind} block should record "${key}": ${why}.`, 'save'),
+  missingOneOf: (keys: readonly string[], kind: string) =>
+    msg('meta.missing-required', 'error', `The ${kind} block needs ${keys.map((k) => `"${k}"`).join(' or ')}.`),
+  unknownKey: (key: string, kind: string, suggestion: string | null) =>
+    msg('meta.unknown-key', 'warning', `"${key}" is not a ${kind} key${suggestion ? `; did you mean "${suggestion}"?` : '.'} It is ignored.`),
+  wrongType: (key: string, expected: string) => msg('meta.wrong-type', 'error', `"${key}" must be ${expected}.`),
+  badValue: (key: string, allowed: readonly string[]) =>
+    msg('meta.bad-value', 'error', `"${key}" must be one of ${allowed.map((a) => `"${a}"`).join(', ')}.`),
+  badPattern: (key: string, what: string) => msg('meta.bad-value', 'error', `"${key}" must be ${what}.`),
+  outOfRange: (key: string, limit: string) => msg('meta.out-of-range', 'error', `"${key}" must be ${limit}.`),
+  schemaOther: (key: string, detail: string) => msg('meta.invalid', 'error', `"${key}" is not valid: ${detail}.`),
+
+  // Quantities
+  quantityNotNumber: (key: string, words: string, example: string) =>
+    msg('quantity.not-a-number', 'error', `"${key}" must be ${words} with a unit, e.g. "${example}".`),
+  quantityUnknownUnit: (key: string, unit: string, example: string) =>
+    msg('quantity.unknown-unit', 'error', `"${unit}" in "${key}" is not a unit Vitrine knows. Write it like "${example}".`),
+  quantityWrongDimension: (key: string, unit: string, words: string, example: string) =>
+    msg('quantity.wrong-dimension', 'error', `"${key}" must be ${words}, but "${unit}" is not; e.g. "${example}".`),
+  quantityNotFinite: (key: string) => msg('quantity.not-finite', 'error', `"${key}" must be a finite number.`),
+  quantityBareNumber: (key: string, unit: string) =>
+    msg('quantity.bare-number', 'warning', `"${key}" has no unit; Vitrine assumes ${unit}. Write the unit to make it explicit.`),
+  temperatureLooksCelsius: (key: string, kelvin: number) =>
+    msg('quantity.looks-celsius', 'warning', `"${key}" is ${fmt(kelvin)} K, which is implausibly cold for this material; was it meant in °C?`),
+
+  // Tables and data files
+  tableNoData: (kind: string) => msg('table.no-data', 'error', `The ${kind} block needs data: a "data: file.csv" line or a table after a "---" line.`),
+  tableBothData: () => msg('table.both-data', 'error', 'The block has both "data:" and an inline table. Keep one of them.'),
+  tableNoHeader: () => msg('table.no-header', 'error', 'The table has no header line. Start it with column names and units, e.g. "T/K, h/nm".'),
+  tableNoRows: () => msg('table.no-rows', 'error', 'The table has a header but no data rows.'),
+  tableNoUnit: (header: string) =>
+    msg('table.no-unit', 'error', `Column "${header}" has no unit. Write it as "${header}/K", "${header} (K)" or "${header} [K]".`),
+  tableUnknownUnit: (header: string, unit: string) => msg('table.unknown-unit', 'error', `Column "${header}": "${unit}" is not a unit Vitrine knows.`),
+  tableWrongDimension: (header: string, unit: string, words: string) =>
+    msg('table.wrong-dimension', 'error', `Column "${header}" holds ${words}, but "${unit}" is not a unit of that.`),
+  tableDuplicateColumn: (role: string) => msg('table.duplicate-column', 'error', `Two columns are ${role}. Keep one, or name the one to use in "columns:".`),
+  tableMissingColumn: (role: string, kind: string, symbols: string) =>
+    msg('table.missing-column', 'error', `The ${kind} table needs a ${role} column (header ${symbols}).`),
+  tableColumnsUnknownHeader: (role: string, header: string) =>
+    msg('table.unknown-header', 'error', `"columns: ${role}" names "${header}", but the table has no such column.`),
+  tableBadCell: (text: string, header: string) =>
+    msg('table.bad-cell', 'error', `"${text}" in column "${header}" is not a number.`),
+  tableEmptyCell: (header: string) => msg('table.empty-cell', 'error', `The cell in column "${header}" is empty.`),
+  tableNonFinite: (text: string, header: string) =>
+    msg('table.non-finite', 'error', `"${text}" in column "${header}" is not a finite number; remove the row or write the value.`),
+  tableRagged: (found: number, expected: number) =>
+    msg('table.ragged-row', 'error', `This row has ${found} cells but the header has ${expected}.`),
+  tableInFile: (path: string, count: number) =>
+    msg('table.file-errors', 'error', `${path} has ${count} problem${count === 1 ? '' : 's'} in its table; the first is shown with this one.`),
+
+  dataAbsolute: (path: string) => msg('data.absolute-path', 'error', `"${path}" is an absolute path. Write the path relative to this notebook file.`),
+  dataOutsideRoot: (path: string) =>
+    msg('data.outside-root', 'error', `"${path}" leads outside the notebook folder. Keep data files inside it.`),
+  dataMissing: (path: string) => msg('data.missing-file', 'error', `The data file "${path}" does not exist.`),
+  dataTooLarge: (path: string, bytes: number, limit: number) =>
+    msg('data.too-large', 'error', `The data file "${path}" is ${fmt(bytes / 1e6, 3)} MB, more than the ${fmt(limit / 1e6, 3)} MB Vitrine reads. Split or thin the file.`),
+  dataUnreadable: (path: string, detail: string) => msg('data.unreadable', 'error', `The data file "${path}" cannot be read: ${detail}.`),
+
+  // References
+  refDangling: (key: string, id: string, kind: string) =>
+    msg('ref.dangling', 'error', `"${key}: ${id}" names no block; there is no ${kind} with id "${id}" in this notebook.`),
+  refWrongKind: (key: string, id: string, expected: string, actual: string) =>
+    msg('ref.wrong-kind', 'error', `"${key}: ${id}" must name a ${expected} block, but "${id}" is a ${actual} block.`),
+
+  // Deposition physics
+  tsubAboveTg: (tsub: number, tg: number) =>
+    msg('deposition.tsub-above-tg', 'warning', `The substrate (${fmt(tsub)} K) is at or above the material's Tg (${fmt(tg)} K): the film was a liquid while it grew.`),
+  tsubRatioOutside: (ratio: number) =>
+    msg('deposition.tsub-ratio', 'info', `Tsub/Tg = ${fmt(ratio, 3)} is outside 0.75–0.95, where the most stable glasses form; expect low stability.`),
+  pressureHigh: (pa: number) =>
+    msg('deposition.pressure-high', 'warning', `Base pressure ${fmt(pa, 3)} Pa is above 1.3e-3 Pa (1e-5 Torr): residual gas may contaminate the film. Check the value and its unit.`),
+  pressureImplausible: (pa: number) =>
+    msg('deposition.pressure-implausible', 'warning', `Base pressure ${fmt(pa, 3)} Pa is not a plausible vacuum. Check the value and its unit.`),
+  thicknessMismatch: (thickness: number, expected: number) =>
+    msg('deposition.thickness-mismatch', 'warning', `Thickness ${fmt(thickness)} nm differs from rate × duration = ${fmt(expected)} nm by more than 15 %. Check the rate, the duration or the tooling factor.`),
+  tgReferenceUnknown: (material: string) =>
+    msg('deposition.no-tg', 'warning', `Tsub/Tg cannot be computed: material "${material}" has no usable Tg.`),
+
+  // Material
+  vftNoTg: (a: number) =>
+    msg('material.vft-no-tg', 'error', `With log10_tau0 = ${fmt(a)}, τ never reaches 100 s above T0 (log10_tau0 must be below 2).`),
+  vftBadParameters: (detail: string) => msg('material.vft-invalid', 'error', `The VFT parameters are not usable: ${detail}.`),
+  vftTgDisagrees: (tgVft: number, tg: number) =>
+    msg('material.tg-vft-disagrees', 'warning', `The VFT parameters give Tg = ${fmt(tgVft)} K (τ = 100 s), ${fmt(Math.abs(tgVft - tg), 3)} K from the stated tg ${fmt(tg)} K. Check the parameters or the tg.`),
+
+  // Results blocks
+  resultsStale: (id: string) =>
+    msg('results.stale', 'warning', `These frozen results no longer match the inputs of "${id}"; the data or metadata changed since they were written.`),
+
+  // Host
+  fileUnreadable: (detail: string) => msg('file.unreadable', 'error', `The notebook file cannot be read: ${detail}.`),
+  internalError: (detail: string) => msg('internal.error', 'error', `Vitrine failed on this block (${detail}). The rest of the notebook was still analysed; please report this.`),
+};
+
+export { fmt as formatNumber };

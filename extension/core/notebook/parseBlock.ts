@@ -1,0 +1,318 @@
+/**
+ * Turns one fenced data block into a ParsedBlock: header, YAML metadata with ranges, schema
+ * problems, quantities in canonical units, and the data table (inline or from a file).
+ *
+ * Every span in a ParsedBlock is **relative to the block's first fence character**, so a parse
+ * can be cached by the block's text and reused when text above it moves the block.
+ *
+ * Policy: never throws; every problem becomes a diagnostic.
+ */
+import { at, type Diagnostic, type Message, type RelatedLocation } from '../diagnostics/diagnostic.js';
+import { messages } from '../diagnostics/messages.js';
+import { parseMetadata, valueAt, type Metadata } from '../parse/metadata.js';
+import { parseQuantity, type Quantity } from '../parse/quantity.js';
+import { parseTable, type Table } from '../parse/table.js';
+import { CANONICAL } from '../parse/units.js';
+import { ID_PATTERN, type BlockHeader, type BlockKind } from '../scan/blockHeader.js';
+import type { FencedBlock } from '../scan/fenceScanner.js';
+import { quantityFields, type QuantityField } from '../schema/quantityFields.js';
+import { SCHEMAS } from '../schema/schemas.js';
+import { recommendedKeys, validateMetadata } from '../schema/validator.js';
+import { BodyMap } from '../text/bodyMap.js';
+import { hashText } from '../text/hash.js';
+import { resolveNotebookPath } from '../text/notebookPath.js';
+import type { Span } from '../text/positions.js';
+import type { NotebookHost } from '../host.js';
+
+/** Data files larger than this are refused with a diagnostic. */
+export const MAX_DATA_FILE_BYTES = 32 * 1024 * 1024;
+
+/** Kinds whose blocks carry a data table. */
+const KINDS_WITH_DATA: ReadonlySet<BlockKind> = new Set(['ramp', 'isotherm', 'dsc', 'relaxation']);
+
+export interface Reference {
+  readonly key: string;
+  readonly id: string;
+  /** Kinds the reference may name. */
+  readonly expected: readonly BlockKind[];
+  readonly span: Span;
+}
+
+export interface TableOrigin {
+  readonly source: 'inline' | 'file';
+  /** Root-relative path of the data file. */
+  readonly path?: string;
+  /** Hash of the data file text, part of every cache key that depends on it. */
+  readonly fileHash?: string;
+}
+
+export interface ParsedBlock {
+  readonly kind: BlockKind;
+  readonly id: string | null;
+  readonly header: BlockHeader;
+  /** Root-relative path of the notebook file. */
+  readonly file: string;
+  /** Cache key of this parse: file, block text and data file text. */
+  readonly key: string;
+  readonly span: Span;
+  readonly metadata: Metadata;
+  readonly quantities: ReadonlyMap<string, Quantity>;
+  readonly table: Table | null;
+  readonly tableOrigin: TableOrigin | null;
+  readonly references: readonly Reference[];
+  readonly diagnostics: readonly Diagnostic[];
+  /** Document span (relative) of a metadata value or key, by JSON pointer. */
+  spanOf(pointer: string, atKey?: boolean): Span;
+  /** Relative span of a table row (by row index into the table's kept rows). */
+  rowSpan(row: number): Span;
+  /** Relative span of a header cell of a column. */
+  columnSpan(role: string): Span;
+}
+
+const fieldCache = new Map<BlockKind, QuantityField[]>();
+function fieldsOf(kind: BlockKind): QuantityField[] {
+  let f = fieldCache.get(kind);
+  if (!f) {
+    f = quantityFields(SCHEMAS[kind]);
+    fieldCache.set(kind, f);
+  }
+  return f;
+}
+
+/** Pointers in the data that match a field pattern ("*" for any array index). */
+function matchingPointers(data: unknown, segments: readonly string[]): string[] {
+  const out: string[] = [];
+  const walk = (node: unknown, i: number, pointer: string): void => {
+    if (i === segments.length) {
+      if (node !== undefined && node !== null) out.push(pointer);
+      return;
+    }
+    if (node === null || typeof node !== 'object') return;
+    const seg = segments[i];
+    if (seg === '*' && Array.isArray(node)) {
+      node.forEach((item, k) => walk(item, i + 1, `${pointer}/${k}`));
+    } else if (seg !== '*') {
+      walk((node as Record<string, unknown>)[seg], i + 1, `${pointer}/${seg}`);
+    }
+  };
+  walk(data, 0, '');
+  return out;
+}
+
+function keyLabel(pointer: string): string {
+  return pointer.split('/').filter((p) => p.length > 0).join('.');
+}
+
+/** Rebases a fenced block so that its first fence character is offset 0. */
+function rebase(block: FencedBlock): FencedBlock {
+  const d = block.span.start;
+  const s = (x: Span): Span => ({ start: x.start - d, end: x.end - d });
+  return {
+    ...block,
+    span: s(block.span),
+    infoSpan: s(block.infoSpan),
+    bodyLines: block.bodyLines.map((l) => ({ start: l.start - d, end: l.end - d, pad: l.pad })),
+  };
+}
+
+function rebaseHeader(header: BlockHeader, d: number): BlockHeader {
+  const s = (x: Span): Span => ({ start: x.start - d, end: x.end - d });
+  return {
+    ...header,
+    kindSpan: s(header.kindSpan),
+    idSpan: header.idSpan ? s(header.idSpan) : null,
+    extra: header.extra ? { text: header.extra.text, span: s(header.extra.span) } : null,
+  };
+}
+
+export interface ParseInput {
+  readonly file: string;
+  readonly fence: FencedBlock;
+  readonly header: BlockHeader;
+  /** The block's source text, from its first fence character to its end. */
+  readonly source: string;
+}
+
+/** The cache key of a block before its data file is read. */
+export function blockTextKey(file: string, source: string): string {
+  return hashText(`${file}\u0000${source}`);
+}
+
+export function parseBlock(input: ParseInput, host: NotebookHost): ParsedBlock {
+  const fence = rebase(input.fence);
+  const header = rebaseHeader(input.header, input.fence.span.start);
+  const { kind } = header;
+  const diagnostics: Diagnostic[] = [];
+  const headerSpan: Span = header.idSpan ?? header.kindSpan;
+  const push = (m: Message, span: Span, related?: RelatedLocation[]): void => {
+    diagnostics.push(at(m, span, related));
+  };
+
+  if (!fence.closed) push(messages.blockUnclosed(kind), { start: 0, end: fence.fenceLength });
+  if (header.id !== null && !ID_PATTERN.test(header.id) && header.idSpan) push(messages.blockBadId(header.id), header.idSpan);
+  if (header.id === null && (kind === 'material' || kind === 'deposition')) push(messages.blockNoId(kind), header.kindSpan);
+  if (header.extra) push(messages.blockExtraInfo(header.extra.text), header.extra.span);
+
+  // Body: metadata, then optionally `---` and a table.
+  const map = new BodyMap(fence.bodyLines, fence.infoSpan.end);
+  const bodyLines = fence.body.split('\n');
+  let separator = -1;
+  for (let i = 0; i < bodyLines.length; i++) {
+    if (/^---[ \t]*$/.test(bodyLines[i])) {
+      separator = i;
+      break;
+    }
+  }
+  const metaEndLine = separator >= 0 ? separator : bodyLines.length;
+  const metaText = fence.body.length === 0 ? '' : bodyLines.slice(0, metaEndLine).join('\n');
+  const metadata = parseMetadata(metaText);
+  const toDoc = (s: Span): Span => map.spanToDocument(s);
+
+  const isEmpty = fence.body.trim().length === 0;
+  if (isEmpty) push(messages.blockEmpty(kind), headerSpan);
+  for (const p of metadata.problems) push(messages.yamlSyntax(p.message), toDoc(p.span));
+  if (metadata.notAMap) push(messages.yamlNotMap(), toDoc({ start: 0, end: metaText.length }));
+
+  const spanOf = (pointer: string, atKey = false): Span => {
+    const e = metadata.spans.get(pointer);
+    if (!e) return headerSpan;
+    return toDoc(atKey ? e.key : e.value);
+  };
+
+  // Schema.
+  if (!isEmpty && !metadata.notAMap) {
+    for (const p of validateMetadata(kind, metadata.data)) {
+      const span = p.pointer === '' ? headerSpan : spanOf(p.pointer, p.atKey);
+      push(p.message, span);
+    }
+    for (const [key, why] of Object.entries(recommendedKeys(kind))) {
+      if (metadata.data[key] === undefined) push(messages.missingRecommended(key, kind, why), headerSpan);
+    }
+  }
+
+  // Quantities.
+  const quantities = new Map<string, Quantity>();
+  for (const field of fieldsOf(kind)) {
+    for (const pointer of matchingPointers(metadata.data, field.segments)) {
+      const raw = valueAt(metadata.data, pointer);
+      if (typeof raw !== 'string' && typeof raw !== 'number') continue; // the schema reported it
+      const label = keyLabel(pointer);
+      const c = CANONICAL[field.dimension];
+      const parsed = parseQuantity(raw, field.dimension);
+      const span = spanOf(pointer);
+      if (!parsed.ok) {
+        if (parsed.reason === 'not-a-number') push(messages.quantityNotNumber(label, c.words, c.example), span);
+        else if (parsed.reason === 'unknown-unit') push(messages.quantityUnknownUnit(label, parsed.unitText, c.example), span);
+        else if (parsed.reason === 'wrong-dimension') push(messages.quantityWrongDimension(label, parsed.unitText, c.words, c.example), span);
+        else push(messages.quantityNotFinite(label), span);
+        continue;
+      }
+      if (parsed.assumedUnit) push(messages.quantityBareNumber(label, c.unit), span);
+      quantities.set(pointer, parsed.quantity);
+    }
+  }
+
+  // References to other blocks.
+  const references: Reference[] = [];
+  const ref = (key: string, expected: BlockKind[]): void => {
+    const v = metadata.data[key];
+    if (typeof v === 'string' && ID_PATTERN.test(v)) references.push({ key, id: v, expected, span: spanOf(`/${key}`) });
+  };
+  if (kind === 'deposition' || kind === 'relaxation' || kind === 'dsc') ref('material', ['material']);
+  if (kind === 'ramp' || kind === 'isotherm' || kind === 'dsc') ref('film', ['deposition']);
+  if (kind === 'dsc') ref('reference', ['dsc']);
+  if (kind === 'results') ref('of', ['material', 'deposition', 'ramp', 'isotherm', 'dsc', 'relaxation']);
+
+  // Table.
+  let table: Table | null = null;
+  let tableOrigin: TableOrigin | null = null;
+  let rowLineToDoc: (line: number) => Span = () => headerSpan;
+  const columnsMap = (typeof metadata.data.columns === 'object' && metadata.data.columns !== null ? metadata.data.columns : {}) as Record<string, string>;
+  const inlineLines = separator >= 0 ? bodyLines.slice(separator + 1) : null;
+  const dataValue = metadata.data.data;
+  if (KINDS_WITH_DATA.has(kind) && !isEmpty) {
+    if (inlineLines && typeof dataValue === 'string') {
+      push(messages.tableBothData(), spanOf('/data', true));
+    }
+    if (inlineLines) {
+      table = parseTable(inlineLines, columnsMap);
+      tableOrigin = { source: 'inline' };
+      const first = separator + 1;
+      rowLineToDoc = (line) => map.lineSpan(first + line);
+      for (const p of table.problems) {
+        const lineSpan = map.lineSpan(first + p.line);
+        const start = Math.min(lineSpan.start + p.start, lineSpan.end);
+        push(p.message, { start, end: Math.min(Math.max(start, lineSpan.start + p.end), lineSpan.end) });
+      }
+      if (inlineLines.every((l) => l.trim().length === 0 || l.trim().startsWith('#'))) {
+        // parseTable already said there is no header.
+      }
+    } else if (typeof dataValue === 'string') {
+      const valueSpan = spanOf('/data');
+      const resolved = resolveNotebookPath(input.file, dataValue);
+      if (!resolved.ok) {
+        push(resolved.reason === 'absolute' ? messages.dataAbsolute(dataValue) : messages.dataOutsideRoot(dataValue), valueSpan);
+      } else {
+        const read = host.readDataFile(resolved.path, MAX_DATA_FILE_BYTES);
+        if (!read.ok) {
+          if (read.reason === 'missing') push(messages.dataMissing(dataValue), valueSpan);
+          else if (read.reason === 'too-large') push(messages.dataTooLarge(dataValue, read.size ?? 0, MAX_DATA_FILE_BYTES), valueSpan);
+          else if (read.reason === 'outside-root') push(messages.dataOutsideRoot(dataValue), valueSpan);
+          else push(messages.dataUnreadable(dataValue, read.detail ?? 'unknown error'), valueSpan);
+        } else {
+          const text = read.text.startsWith('\uFEFF') ? read.text.slice(1) : read.text;
+          const lines = text.split(/\r\n|\r|\n/);
+          table = parseTable(lines, columnsMap);
+          tableOrigin = { source: 'file', path: resolved.path, fileHash: hashText(text) };
+          rowLineToDoc = () => valueSpan;
+          const first = table.problems[0];
+          if (first) {
+            const related: RelatedLocation[] = table.problems.slice(0, 20).map((p) => ({
+              path: resolved.path,
+              line: p.line + 1,
+              column: p.start + 1,
+              message: p.message.message,
+            }));
+            push(
+              { ...first.message, message: `${resolved.path}:${first.line + 1}:${first.start + 1}: ${first.message.message}${table.problems.length > 1 ? ` (and ${table.problems.length - 1} more)` : ''}` },
+              valueSpan,
+              related,
+            );
+          }
+        }
+      }
+    } else if (!(metadata.problems.length > 0)) {
+      push(messages.tableNoData(kind), headerSpan);
+    }
+  }
+
+  const rowSpan = (row: number): Span => {
+    if (!table || row < 0 || row >= table.rowCount) return headerSpan;
+    return rowLineToDoc(table.rowLines[row]);
+  };
+  const columnSpan = (role: string): Span => {
+    const col = table?.columns.find((c) => c.role === role);
+    if (!col || tableOrigin?.source !== 'inline') return tableOrigin?.source === 'file' ? spanOf('/data') : headerSpan;
+    const line = rowLineToDoc(col.headerLine);
+    return { start: Math.min(line.start + col.headerStart, line.end), end: Math.min(line.start + col.headerEnd, line.end) };
+  };
+
+  const key = hashText(`${blockTextKey(input.file, input.source)}\u0000${tableOrigin?.fileHash ?? ''}`);
+  return {
+    kind,
+    id: header.id,
+    header,
+    file: input.file,
+    key,
+    span: fence.span,
+    metadata,
+    quantities,
+    table,
+    tableOrigin,
+    references,
+    diagnostics,
+    spanOf,
+    rowSpan,
+    columnSpan,
+  };
+}

@@ -1,0 +1,101 @@
+/**
+ * A block's YAML metadata, parsed by the `yaml` package with source ranges, so that every
+ * diagnostic points at the key or value it is about. Spans here are in **body offsets** (see
+ * BodyMap); callers map them to the document.
+ *
+ * Policy: never throws. Empty text is an empty map. YAML errors become diagnostics; whatever
+ * could still be read is kept.
+ */
+import { isMap, isScalar, isSeq, parseDocument, type Node as YamlNode } from 'yaml';
+import type { Span } from '../text/positions.js';
+
+/** Spans of a key and its value, body offsets. */
+export interface EntrySpans {
+  readonly key: Span;
+  readonly value: Span;
+}
+
+export interface YamlProblem {
+  readonly message: string;
+  readonly span: Span;
+}
+
+export interface Metadata {
+  /** Plain JSON-like data, as validated by the schemas. */
+  readonly data: Record<string, unknown>;
+  /** JSON pointer ("/vft/B", "/windows/glass/0") to spans. */
+  readonly spans: ReadonlyMap<string, EntrySpans>;
+  readonly problems: readonly YamlProblem[];
+  /** The metadata is not a map at all (a list, a scalar). */
+  readonly notAMap: boolean;
+}
+
+function spanOf(node: YamlNode | null | undefined, fallback: Span): Span {
+  const r = node?.range;
+  if (!r) return fallback;
+  return { start: r[0], end: Math.max(r[0], r[1]) };
+}
+
+export function escapePointer(key: string): string {
+  return key.replace(/~/g, '~0').replace(/\//g, '~1');
+}
+
+export function parseMetadata(text: string): Metadata {
+  const spans = new Map<string, EntrySpans>();
+  const problems: YamlProblem[] = [];
+  if (text.trim().length === 0) return { data: {}, spans, problems, notAMap: false };
+  const doc = parseDocument(text, { uniqueKeys: true, prettyErrors: false, strict: true });
+  for (const e of doc.errors) {
+    const start = Math.min(e.pos[0], text.length);
+    problems.push({ message: e.message.split('\n')[0], span: { start, end: Math.min(Math.max(start, e.pos[1]), text.length) } });
+  }
+  const contents = doc.contents as YamlNode | null;
+  if (contents === null || (isScalar(contents) && (contents.value === null || contents.value === ''))) {
+    return { data: {}, spans, problems, notAMap: false };
+  }
+  if (!isMap(contents)) {
+    return { data: {}, spans, problems, notAMap: true };
+  }
+  const whole = { start: 0, end: text.length };
+  const walk = (node: YamlNode, pointer: string): void => {
+    if (isMap(node)) {
+      for (const pair of node.items) {
+        const keyNode = pair.key as YamlNode | null;
+        const keyText = isScalar(keyNode) ? String(keyNode.value) : String(keyNode);
+        const child = `${pointer}/${escapePointer(keyText)}`;
+        const keySpan = spanOf(keyNode, whole);
+        const valueNode = pair.value as YamlNode | null;
+        spans.set(child, { key: keySpan, value: valueNode ? spanOf(valueNode, keySpan) : { start: keySpan.end, end: keySpan.end } });
+        if (valueNode) walk(valueNode, child);
+      }
+    } else if (isSeq(node)) {
+      node.items.forEach((item, i) => {
+        const itemNode = item as YamlNode;
+        const s = spanOf(itemNode, whole);
+        spans.set(`${pointer}/${i}`, { key: s, value: s });
+        walk(itemNode, `${pointer}/${i}`);
+      });
+    }
+  };
+  walk(contents, '');
+  let data: Record<string, unknown> = {};
+  try {
+    const js = doc.toJS({ maxAliasCount: 50 }) as unknown;
+    if (js && typeof js === 'object' && !Array.isArray(js)) data = js as Record<string, unknown>;
+  } catch (e) {
+    problems.push({ message: e instanceof Error ? e.message : String(e), span: whole });
+  }
+  return { data, spans, problems, notAMap: false };
+}
+
+/** The value at a JSON pointer, or undefined. */
+export function valueAt(data: unknown, pointer: string): unknown {
+  if (pointer === '') return data;
+  let cur: unknown = data;
+  for (const raw of pointer.slice(1).split('/')) {
+    const key = raw.replace(/~1/g, '/').replace(/~0/g, '~');
+    if (cur === null || typeof cur !== 'object') return undefined;
+    cur = (cur as Record<string, unknown>)[key];
+  }
+  return cur;
+}

@@ -1,0 +1,71 @@
+/**
+ * The results contract of `vitrine analyze --json` (DESIGN.md): files, blocks, results and
+ * diagnostics with 1-based lines and columns.
+ */
+import type { Diagnostic, RelatedLocation } from '../diagnostics/diagnostic.js';
+import type { NotebookReport } from '../notebook/notebook.js';
+import { toOneBased, visibleSpan, type LineIndex } from '../text/positions.js';
+import type { ResultValue } from './result.js';
+
+export interface JsonDiagnostic {
+  severity: string;
+  code: string;
+  message: string;
+  line: number;
+  column: number;
+  endLine: number;
+  endColumn: number;
+  related?: readonly RelatedLocation[];
+}
+
+export interface JsonBlock {
+  kind: string;
+  id: string | null;
+  line: number;
+  results: Record<string, ResultValue>;
+  diagnostics: JsonDiagnostic[];
+}
+
+export interface JsonFile {
+  path: string;
+  blocks: JsonBlock[];
+  diagnostics: JsonDiagnostic[];
+}
+
+export interface JsonReport {
+  files: JsonFile[];
+}
+
+export function jsonDiagnostic(d: Diagnostic, lines: LineIndex): JsonDiagnostic {
+  const r = toOneBased(lines.rangeOf(visibleSpan(d.span, lines.text.length)));
+  const out: JsonDiagnostic = { severity: d.severity, code: d.code, message: d.message, ...r };
+  if (d.related) out.related = d.related;
+  return out;
+}
+
+/** Rounds to 12 significant digits so that golden files do not churn on the last bit. */
+function tidy(v: ResultValue): ResultValue {
+  const r = (x: number): number => (Number.isFinite(x) ? Number(x.toPrecision(12)) : x);
+  return v.uncertainty !== undefined ? { ...v, value: r(v.value), uncertainty: r(v.uncertainty) } : { ...v, value: r(v.value) };
+}
+
+export function toJsonReport(report: NotebookReport, pathPrefix = ''): JsonReport {
+  return {
+    files: report.files.map((f) => ({
+      path: pathPrefix + f.path,
+      blocks: f.blocks.map((b) => ({
+        kind: b.kind,
+        id: b.id,
+        line: f.lines.positionAt(b.span.start).line + 1,
+        results: Object.fromEntries(Object.entries(b.results).map(([k, v]) => [k, tidy(v)])),
+        diagnostics: b.diagnostics.map((d) => jsonDiagnostic(d, f.lines)),
+      })),
+      diagnostics: f.diagnostics.map((d) => jsonDiagnostic(d, f.lines)),
+    })),
+  };
+}
+
+/** `file:line:col: severity: message [code]`, the compiler-style line of `vitrine check`. */
+export function formatDiagnosticLine(file: string, d: JsonDiagnostic): string {
+  return `${file}:${d.line}:${d.column}: ${d.severity}: ${d.message} [${d.code}]`;
+}

@@ -1,0 +1,596 @@
+/**
+ * Finds fenced code blocks in markdown by the CommonMark 0.31 block-structure rules, without
+ * building a syntax tree.
+ *
+ * Method: the two-phase line algorithm of the CommonMark specification, appendix "A parsing
+ * strategy" (https://spec.commonmark.org/0.31.2/#appendix-a-parsing-strategy): each line is
+ * matched against the open containers (block quotes, lists, list items), then new block starts
+ * are tried. Only what decides where a fence can open or close is modelled: containers, fenced
+ * and indented code, HTML blocks, paragraphs (lazy continuation, interruption rules), headings
+ * and thematic breaks. Tabs count to the next multiple of 4 columns; a tab partly used by a
+ * container marker contributes spaces to the content, as the specification requires.
+ *
+ * Input policy: any string; an empty string has no blocks. The text must already have its BOM
+ * removed (`stripBom`). Never throws.
+ *
+ * Positions follow mdast: a block starts at its first fence character and ends after its
+ * closing fence, or after its last content line when a container closes it, or at the end of
+ * the document when it is never closed.
+ */
+import { decodeInfoString } from './infoString.js';
+import type { Span } from '../text/positions.js';
+
+/** One line of a block's body as it maps back into the source. */
+export interface BodyLine {
+  /** Offset of the first source character of the content (after container prefixes). */
+  readonly start: number;
+  /** Offset of the end of the content, before the line break. */
+  readonly end: number;
+  /** Spaces that stand for a tab partly used by the prefix (0 in almost every document). */
+  readonly pad: number;
+}
+
+export interface FencedBlock {
+  /** From the first fence character to the end of the block (see the file comment). */
+  readonly span: Span;
+  /** The raw info string, trimmed, as written (before escapes are decoded). */
+  readonly rawInfo: string;
+  /** Offsets of the raw info string in the source (empty span after the fence when absent). */
+  readonly infoSpan: Span;
+  /** First word of the decoded info string, or null. */
+  readonly lang: string | null;
+  /** The rest of the decoded info string, or null. */
+  readonly meta: string | null;
+  readonly fenceChar: '`' | '~';
+  readonly fenceLength: number;
+  readonly bodyLines: readonly BodyLine[];
+  /** The body text: body lines joined by `\n`. */
+  readonly body: string;
+  readonly closed: boolean;
+}
+
+type ContainerKind = 'document' | 'quote' | 'list' | 'item';
+type LeafKind = 'paragraph' | 'fenced' | 'indented' | 'html';
+
+interface ListData {
+  readonly bullet: string;
+  readonly ordered: boolean;
+  readonly delimiter: string;
+  readonly markerOffset: number;
+  readonly padding: number;
+}
+
+interface Container {
+  readonly kind: ContainerKind;
+  readonly list?: ListData;
+  /** An item that began with a blank line and still has no content cannot take more lines. */
+  hasContent: boolean;
+}
+
+interface OpenFence {
+  readonly start: number;
+  readonly fenceChar: '`' | '~';
+  readonly fenceLength: number;
+  readonly fenceIndent: number;
+  readonly rawInfo: string;
+  readonly infoSpan: Span;
+  readonly lines: BodyLine[];
+  /** End of the last line that belongs to the block. */
+  lastEnd: number;
+}
+
+interface Leaf {
+  readonly kind: LeafKind;
+  readonly htmlType?: number;
+  readonly fence?: OpenFence;
+}
+
+const CODE_INDENT = 4;
+const MAYBE_SPECIAL = /^[#`~*+_=<>0-9-]/;
+const ATX_HEADING = /^#{1,6}(?:[ \t]+|$)/;
+const FENCE_START = /^`{3,}(?!.*`)|^~{3,}/;
+const FENCE_CLOSE = /^(?:`{3,}|~{3,})(?=[ \t]*$)/;
+const THEMATIC_BREAK = /^(?:\*[ \t]*){3,}$|^(?:_[ \t]*){3,}$|^(?:-[ \t]*){3,}$/;
+const SETEXT_UNDERLINE = /^(?:=+|-+)[ \t]*$/;
+const BULLET_MARKER = /^[*+-]/;
+const ORDERED_MARKER = /^(\d{1,9})([.)])/;
+
+const HTML_BLOCK_OPEN: readonly RegExp[] = [
+  /./, // unused: block types count from 1
+  /^<(?:script|pre|textarea|style)(?:\s|>|$)/i,
+  /^<!--/,
+  /^<[?]/,
+  /^<![A-Za-z]/,
+  /^<!\[CDATA\[/,
+  /^<[/]?(?:address|article|aside|base|basefont|blockquote|body|caption|center|col|colgroup|dd|details|dialog|dir|div|dl|dt|fieldset|figcaption|figure|footer|form|frame|frameset|h[123456]|head|header|hr|html|iframe|legend|li|link|main|menu|menuitem|nav|noframes|ol|optgroup|option|p|param|search|section|summary|table|tbody|td|tfoot|th|thead|title|tr|track|ul)(?:\s|[/]?[>]|$)/i,
+  /^(?:<[A-Za-z][A-Za-z0-9-]*(?:\s+[a-zA-Z_:][a-zA-Z0-9:._-]*(?:\s*=\s*(?:[^"'=<>`\x00-\x20]+|'[^']*'|"[^"]*"))?)*\s*\/?>|<\/[A-Za-z][A-Za-z0-9-]*\s*[>])\s*$/i,
+];
+
+const HTML_BLOCK_CLOSE: readonly (RegExp | null)[] = [
+  null,
+  /<\/(?:script|pre|textarea|style)>/i,
+  /-->/,
+  /\?>/,
+  />/,
+  /\]\]>/,
+  null,
+  null,
+];
+
+function isSpaceOrTab(c: string | undefined): boolean {
+  return c === ' ' || c === '\t';
+}
+
+/** Splits text into lines: [start, end) without the break, and where the next line starts. */
+function splitLines(text: string): Array<{ start: number; end: number }> {
+  const lines: Array<{ start: number; end: number }> = [];
+  let start = 0;
+  for (let i = 0; i < text.length; i++) {
+    const c = text.charCodeAt(i);
+    if (c === 10 || c === 13) {
+      lines.push({ start, end: i });
+      if (c === 13 && text.charCodeAt(i + 1) === 10) i++;
+      start = i + 1;
+    }
+  }
+  if (start < text.length) lines.push({ start, end: text.length });
+  return lines;
+}
+
+/** Scans a document and returns its fenced code blocks in document order. */
+export function scanFencedBlocks(text: string): FencedBlock[] {
+  return new FenceScanner(text).run();
+}
+
+class FenceScanner {
+  private readonly blocks: FencedBlock[] = [];
+  private readonly containers: Container[] = [{ kind: 'document', hasContent: true }];
+  private leaf: Leaf | null = null;
+
+  // Per-line cursor, as in the specification's reference parser.
+  private line = '';
+  private lineStart = 0;
+  private lineEnd = 0;
+  private offset = 0;
+  private column = 0;
+  private partiallyConsumedTab = false;
+  private nextNonspace = 0;
+  private nextNonspaceColumn = 0;
+  private indent = 0;
+  private indented = false;
+  private blank = false;
+
+  constructor(private readonly text: string) {}
+
+  run(): FencedBlock[] {
+    for (const { start, end } of splitLines(this.text)) {
+      this.incorporateLine(start, end);
+    }
+    this.closeContainersFrom(1, this.text.length);
+    this.closeLeaf(this.text.length);
+    return this.blocks;
+  }
+
+  private peek(at: number): string | undefined {
+    return at < this.line.length ? this.line[at] : undefined;
+  }
+
+  private findNextNonspace(): void {
+    let i = this.offset;
+    let cols = this.column;
+    let c: string | undefined;
+    while ((c = this.peek(i)) !== undefined) {
+      if (c === ' ') {
+        i++;
+        cols++;
+      } else if (c === '\t') {
+        i++;
+        cols += 4 - (cols % 4);
+      } else {
+        break;
+      }
+    }
+    this.blank = c === undefined;
+    this.nextNonspace = i;
+    this.nextNonspaceColumn = cols;
+    this.indent = this.nextNonspaceColumn - this.column;
+    this.indented = this.indent >= CODE_INDENT;
+  }
+
+  private advanceNextNonspace(): void {
+    this.offset = this.nextNonspace;
+    this.column = this.nextNonspaceColumn;
+    this.partiallyConsumedTab = false;
+  }
+
+  private advanceOffset(count: number, columns: boolean): void {
+    let c: string | undefined;
+    while (count > 0 && (c = this.peek(this.offset)) !== undefined) {
+      if (c === '\t') {
+        const charsToTab = 4 - (this.column % 4);
+        if (columns) {
+          this.partiallyConsumedTab = charsToTab > count;
+          const charsToAdvance = charsToTab > count ? count : charsToTab;
+          this.column += charsToAdvance;
+          this.offset += this.partiallyConsumedTab ? 0 : 1;
+          count -= charsToAdvance;
+        } else {
+          this.partiallyConsumedTab = false;
+          this.column += charsToTab;
+          this.offset += 1;
+          count -= 1;
+        }
+      } else {
+        this.partiallyConsumedTab = false;
+        this.offset += 1;
+        this.column += 1;
+        count -= 1;
+      }
+    }
+  }
+
+  private incorporateLine(start: number, end: number): void {
+    this.line = this.text.slice(start, end);
+    this.lineStart = start;
+    this.lineEnd = end;
+    this.offset = 0;
+    this.column = 0;
+    this.partiallyConsumedTab = false;
+    this.blank = false;
+
+    // Phase 1: which open containers does this line continue?
+    let matched = 1;
+    for (; matched < this.containers.length; matched++) {
+      if (!this.continues(this.containers[matched])) break;
+    }
+    const allContainersMatched = matched === this.containers.length;
+
+    // The open leaf may consume the line (fenced code checks its closing fence here).
+    if (allContainersMatched && this.leaf) {
+      const consumed = this.continueLeaf();
+      if (consumed === 'closed') return;
+      if (consumed === 'line') {
+        this.addLineToLeaf();
+        return;
+      }
+    }
+
+    let containerIndex = matched - 1;
+
+    // Phase 2: new block starts.
+    for (;;) {
+      this.findNextNonspace();
+      const container = this.containers[containerIndex];
+      const rest = this.line.slice(this.nextNonspace);
+      if (!this.indented && !MAYBE_SPECIAL.test(rest)) {
+        this.advanceNextNonspace();
+        break;
+      }
+      const paragraphOpen = this.leaf?.kind === 'paragraph';
+      // The paragraph is "the container" when it and every container above it matched.
+      const inParagraph = paragraphOpen && containerIndex === this.containers.length - 1;
+
+      if (!this.indented && rest[0] === '>') {
+        this.advanceNextNonspace();
+        this.advanceOffset(1, false);
+        if (isSpaceOrTab(this.peek(this.offset))) this.advanceOffset(1, true);
+        this.prepareChild(containerIndex, false);
+        this.containers.push({ kind: 'quote', hasContent: true });
+        containerIndex = this.containers.length - 1;
+        continue;
+      }
+      if (!this.indented && ATX_HEADING.test(rest)) {
+        this.prepareChild(containerIndex, false);
+        return;
+      }
+      const fence = !this.indented ? FENCE_START.exec(rest) : null;
+      if (fence) {
+        this.prepareChild(containerIndex, false);
+        this.openFence(fence[0]);
+        return;
+      }
+      if (!this.indented && rest[0] === '<') {
+        let htmlType = 0;
+        for (let t = 1; t <= 7; t++) {
+          if (HTML_BLOCK_OPEN[t].test(rest) && (t < 7 || !paragraphOpen)) {
+            htmlType = t;
+            break;
+          }
+        }
+        if (htmlType > 0) {
+          this.prepareChild(containerIndex, false);
+          const close = HTML_BLOCK_CLOSE[htmlType];
+          this.leaf = close && close.test(rest) ? null : { kind: 'html', htmlType };
+          return;
+        }
+      }
+      if (!this.indented && inParagraph && SETEXT_UNDERLINE.test(rest)) {
+        this.closeLeaf(this.lineStart);
+        return;
+      }
+      if (!this.indented && THEMATIC_BREAK.test(rest)) {
+        this.prepareChild(containerIndex, false);
+        return;
+      }
+      if (!this.indented || container.kind === 'list') {
+        const listData = this.parseListMarker(inParagraph);
+        if (listData) {
+          this.truncateTo(containerIndex);
+          this.closeLeaf(this.lineStart);
+          const parent = this.containers[this.containers.length - 1];
+          if (parent.kind !== 'list' || !listsMatch(parent.list!, listData)) {
+            if (parent.kind === 'list') this.containers.pop();
+            this.markContent();
+            this.containers.push({ kind: 'list', list: listData, hasContent: true });
+          }
+          this.containers.push({ kind: 'item', list: listData, hasContent: false });
+          containerIndex = this.containers.length - 1;
+          continue;
+        }
+      }
+      if (this.indented && !paragraphOpen && !this.blank) {
+        this.advanceOffset(CODE_INDENT, true);
+        this.prepareChild(containerIndex, false);
+        this.leaf = { kind: 'indented' };
+        return;
+      }
+      this.advanceNextNonspace();
+      break;
+    }
+
+    // Lazy paragraph continuation: a paragraph line that no container claimed and that starts
+    // no block of its own.
+    const lazy = containerIndex < this.containers.length - 1 && containerIndex === matched - 1;
+    if (lazy && !this.blank && this.leaf?.kind === 'paragraph') return;
+
+    this.truncateTo(containerIndex);
+    if (this.blank || this.leaf?.kind === 'paragraph') return;
+    this.prepareChild(this.containers.length - 1, false);
+    this.leaf = { kind: 'paragraph' };
+  }
+
+  /**
+   * Makes room for a new child of containers[index], as adding a block does in the reference
+   * parser: deeper containers and the open leaf close; a list, which holds only items, closes
+   * when anything else arrives.
+   */
+  private prepareChild(index: number, isItem: boolean): void {
+    this.truncateTo(index);
+    this.closeLeaf(this.lineStart);
+    if (!isItem && this.containers.length > 1 && this.containers[this.containers.length - 1].kind === 'list') {
+      this.containers.pop();
+    }
+    this.markContent();
+  }
+
+  private openFence(marker: string): void {
+    const fenceIndent = this.indent;
+    this.advanceNextNonspace();
+    const fenceStart = this.lineStart + this.offset;
+    this.advanceOffset(marker.length, false);
+    const raw = this.line.slice(this.offset);
+    const lead = raw.length - raw.replace(/^[ \t]+/, '').length;
+    const rawInfo = raw.replace(/^[ \t]+|[ \t]+$/g, '');
+    const infoStart = this.lineStart + this.offset + lead;
+    this.leaf = {
+      kind: 'fenced',
+      fence: {
+        start: fenceStart,
+        fenceChar: marker[0] as '`' | '~',
+        fenceLength: marker.length,
+        fenceIndent,
+        rawInfo,
+        infoSpan: { start: infoStart, end: infoStart + rawInfo.length },
+        lines: [],
+        lastEnd: this.lineEnd,
+      },
+    };
+  }
+
+  /** Phase-1 test of one open container against the current line. */
+  private continues(container: Container): boolean {
+    this.findNextNonspace();
+    switch (container.kind) {
+      case 'quote':
+        if (!this.indented && this.peek(this.nextNonspace) === '>') {
+          this.advanceNextNonspace();
+          this.advanceOffset(1, false);
+          if (isSpaceOrTab(this.peek(this.offset))) this.advanceOffset(1, true);
+          return true;
+        }
+        return false;
+      case 'list':
+        return true;
+      case 'item': {
+        const list = container.list!;
+        if (this.blank) {
+          if (!container.hasContent) return false;
+          this.advanceNextNonspace();
+          return true;
+        }
+        if (this.indent >= list.markerOffset + list.padding) {
+          this.advanceOffset(list.markerOffset + list.padding, true);
+          return true;
+        }
+        return false;
+      }
+      default:
+        return true;
+    }
+  }
+
+  /**
+   * Lets the open leaf look at a line every container matched. Returns 'closed' when a closing
+   * fence took the line, 'line' when the leaf takes the line as content without any new block
+   * start being tried, or 'open' to go on with block starts.
+   */
+  private continueLeaf(): 'closed' | 'line' | 'open' {
+    const leaf = this.leaf!;
+    this.findNextNonspace();
+    switch (leaf.kind) {
+      case 'fenced': {
+        const fence = leaf.fence!;
+        const rest = this.line.slice(this.nextNonspace);
+        const close = this.indent <= 3 && rest[0] === fence.fenceChar ? FENCE_CLOSE.exec(rest) : null;
+        if (close && close[0].length >= fence.fenceLength) {
+          const closeEnd = this.lineStart + this.nextNonspace + close[0].length;
+          this.finishFence(fence, closeEnd, true);
+          this.leaf = null;
+          return 'closed';
+        }
+        let i = fence.fenceIndent;
+        while (i > 0 && isSpaceOrTab(this.peek(this.offset))) {
+          this.advanceOffset(1, true);
+          i--;
+        }
+        return 'line';
+      }
+      case 'indented':
+        if (this.indent >= CODE_INDENT) {
+          this.advanceOffset(CODE_INDENT, true);
+          return 'line';
+        }
+        if (this.blank) {
+          this.advanceNextNonspace();
+          return 'line';
+        }
+        this.leaf = null;
+        return 'open';
+      case 'html':
+        if (this.blank && (leaf.htmlType === 6 || leaf.htmlType === 7)) {
+          this.leaf = null;
+          return 'open';
+        }
+        {
+          const close = HTML_BLOCK_CLOSE[leaf.htmlType ?? 0];
+          if (close && close.test(this.line.slice(this.offset))) this.leaf = null;
+        }
+        return 'closed';
+      case 'paragraph':
+        if (this.blank) {
+          this.leaf = null;
+          return 'closed';
+        }
+        return 'open';
+    }
+  }
+
+  private addLineToLeaf(): void {
+    const leaf = this.leaf;
+    if (!leaf) return;
+    this.markContent();
+    if (leaf.kind !== 'fenced') return;
+    let pad = 0;
+    if (this.partiallyConsumedTab) {
+      this.offset += 1;
+      pad = 4 - (this.column % 4);
+    }
+    const fence = leaf.fence!;
+    const start = this.lineStart + Math.min(this.offset, this.line.length);
+    fence.lines.push({ start, end: this.lineEnd, pad });
+    fence.lastEnd = this.lineEnd;
+  }
+
+  /** Marks the innermost item as having content (an empty item closes at its first blank). */
+  private markContent(): void {
+    for (let i = this.containers.length - 1; i >= 1; i--) {
+      const c = this.containers[i];
+      if (c.kind === 'item') {
+        c.hasContent = true;
+        return;
+      }
+    }
+  }
+
+  /** Keeps containers[0..index]; anything deeper is closed before the current line. */
+  private truncateTo(index: number): void {
+    if (index < this.containers.length - 1) {
+      this.closeContainersFrom(index + 1, this.lineStart);
+    }
+  }
+
+  private closeContainersFrom(index: number, at: number): void {
+    if (index >= this.containers.length) return;
+    this.closeLeaf(at);
+    this.containers.length = Math.max(1, index);
+  }
+
+  /** Ends the open leaf. A fenced block left open ends after its last line (or at `at`). */
+  private closeLeaf(at: number): void {
+    const leaf = this.leaf;
+    this.leaf = null;
+    if (!leaf || leaf.kind !== 'fenced') return;
+    const fence = leaf.fence!;
+    const end = at >= this.text.length ? this.text.length : fence.lastEnd;
+    this.finishFence(fence, end, false);
+  }
+
+  private finishFence(fence: OpenFence, end: number, closed: boolean): void {
+    const body = fence.lines.map((l) => ' '.repeat(l.pad) + this.text.slice(l.start, l.end)).join('\n');
+    const { lang, meta } = decodeInfoString(fence.rawInfo);
+    this.blocks.push({
+      span: { start: fence.start, end },
+      rawInfo: fence.rawInfo,
+      infoSpan: fence.infoSpan,
+      lang,
+      meta,
+      fenceChar: fence.fenceChar,
+      fenceLength: fence.fenceLength,
+      bodyLines: fence.lines,
+      body,
+      closed,
+    });
+  }
+
+  private parseListMarker(interruptsParagraph: boolean): ListData | null {
+    if (this.indent >= CODE_INDENT) return null;
+    const rest = this.line.slice(this.nextNonspace);
+    let bullet = '';
+    let ordered = false;
+    let delimiter = '';
+    let markerLength: number;
+    const b = BULLET_MARKER.exec(rest);
+    const o = b ? null : ORDERED_MARKER.exec(rest);
+    if (b) {
+      bullet = b[0];
+      markerLength = 1;
+    } else if (o && (!interruptsParagraph || o[1] === '1')) {
+      ordered = true;
+      delimiter = o[2];
+      markerLength = o[0].length;
+    } else {
+      return null;
+    }
+    const next = this.peek(this.nextNonspace + markerLength);
+    if (next !== undefined && next !== ' ' && next !== '\t') return null;
+    if (interruptsParagraph && /^[ \t]*$/.test(this.line.slice(this.nextNonspace + markerLength))) return null;
+
+    const markerOffset = this.indent;
+    this.advanceNextNonspace();
+    this.advanceOffset(markerLength, true);
+    const spacesStartCol = this.column;
+    const spacesStartOffset = this.offset;
+    let c: string | undefined;
+    do {
+      this.advanceOffset(1, true);
+      c = this.peek(this.offset);
+    } while (this.column - spacesStartCol < 5 && isSpaceOrTab(c));
+    const blankItem = this.peek(this.offset) === undefined;
+    const spacesAfterMarker = this.column - spacesStartCol;
+    let padding: number;
+    if (spacesAfterMarker >= 5 || spacesAfterMarker < 1 || blankItem) {
+      padding = markerLength + 1;
+      this.column = spacesStartCol;
+      this.offset = spacesStartOffset;
+      this.partiallyConsumedTab = false;
+      if (isSpaceOrTab(this.peek(this.offset))) this.advanceOffset(1, true);
+    } else {
+      padding = markerLength + spacesAfterMarker;
+    }
+    return { bullet, ordered, delimiter, markerOffset, padding };
+  }
+}
+
+function listsMatch(a: ListData, b: ListData): boolean {
+  return a.ordered === b.ordered && a.bullet === b.bullet && a.delimiter === b.delimiter;
+}

@@ -1,0 +1,32 @@
+/**
+ * Finds the metadata fields that hold quantities, from the `quantityOf` annotations of a block
+ * kind's schema (the schema is the one source of truth for which key has which dimension).
+ */
+import type { Dimension } from '../parse/units.js';
+import type { JsonSchema } from './schemas.js';
+
+export interface QuantityField {
+  /** JSON pointer with `*` standing for any array index, e.g. "/windows/glass/*". */
+  readonly pattern: string;
+  /** Concrete pointers are matched segment by segment. */
+  readonly segments: readonly string[];
+  readonly dimension: Dimension;
+}
+
+export function quantityFields(schema: JsonSchema): QuantityField[] {
+  const out: QuantityField[] = [];
+  const visit = (node: unknown, segments: string[]): void => {
+    if (!node || typeof node !== 'object') return;
+    const s = node as Record<string, unknown>;
+    if (typeof s.quantityOf === 'string') {
+      out.push({ pattern: '/' + segments.join('/'), segments: [...segments], dimension: s.quantityOf as Dimension });
+    }
+    const props = s.properties as Record<string, unknown> | undefined;
+    if (props) for (const [k, v] of Object.entries(props)) visit(v, [...segments, k]);
+    const prefix = s.prefixItems as unknown[] | undefined;
+    if (prefix) prefix.forEach((v, i) => visit(v, [...segments, String(i)]));
+    if (s.items && typeof s.items === 'object') visit(s.items, [...segments, '*']);
+  };
+  visit(schema, []);
+  return out;
+}

@@ -1,0 +1,155 @@
+/**
+ * Validates block metadata against the kind's JSON Schema (draft 2020-12) with ajv, compiled
+ * once per kind, and turns every ajv error into a diagnostic message with a stable code and the
+ * JSON pointer it is about. Where a pointer lands in the source is the caller's business.
+ *
+ * Policy: never throws; data of any shape is accepted and reported on.
+ */
+import * as ajv2020 from 'ajv/dist/2020.js';
+import type { ErrorObject, ValidateFunction } from 'ajv';
+import { messages } from '../diagnostics/messages.js';
+import type { Message } from '../diagnostics/diagnostic.js';
+import type { BlockKind } from '../scan/blockHeader.js';
+import { SCHEMAS, type JsonSchema } from './schemas.js';
+
+type AjvClass = typeof ajv2020.Ajv2020;
+const Ajv2020: AjvClass = ajv2020.Ajv2020 ?? (ajv2020 as unknown as { default: { Ajv2020: AjvClass } }).default.Ajv2020;
+
+export interface SchemaProblem {
+  readonly message: Message;
+  /** Pointer of the value concerned; '' is the whole block. */
+  readonly pointer: string;
+  /** Point at the key rather than the value (unknown keys, missing nested keys). */
+  readonly atKey: boolean;
+}
+
+let compiled: Map<BlockKind, ValidateFunction> | null = null;
+
+function validators(): Map<BlockKind, ValidateFunction> {
+  if (compiled) return compiled;
+  const ajv = new Ajv2020({ allErrors: true, strict: true, allowUnionTypes: true, strictRequired: false, verbose: true });
+  ajv.addKeyword({ keyword: 'quantityOf', schemaType: 'string' });
+  ajv.addKeyword({ keyword: 'recommended', schemaType: 'object' });
+  const map = new Map<BlockKind, ValidateFunction>();
+  for (const [kind, schema] of Object.entries(SCHEMAS) as Array<[BlockKind, JsonSchema]>) {
+    map.set(kind, ajv.compile(schema));
+  }
+  compiled = map;
+  return map;
+}
+
+/** Keys the schema names as recommended, with the reason shown to the user. */
+export function recommendedKeys(kind: BlockKind): Readonly<Record<string, string>> {
+  return (SCHEMAS[kind].recommended as Record<string, string> | undefined) ?? {};
+}
+
+/** Edit distance, for "did you mean". */
+function distance(a: string, b: string): number {
+  const d: number[] = Array.from({ length: b.length + 1 }, (_, j) => j);
+  for (let i = 1; i <= a.length; i++) {
+    let prev = d[0];
+    d[0] = i;
+    for (let j = 1; j <= b.length; j++) {
+      const tmp = d[j];
+      d[j] = Math.min(d[j] + 1, d[j - 1] + 1, prev + (a[i - 1] === b[j - 1] ? 0 : 1));
+      prev = tmp;
+    }
+  }
+  return d[b.length];
+}
+
+export function suggest(word: string, candidates: readonly string[]): string | null {
+  let best: string | null = null;
+  let bestD = Infinity;
+  for (const c of candidates) {
+    const dd = distance(word.toLowerCase(), c.toLowerCase());
+    if (dd < bestD) {
+      bestD = dd;
+      best = c;
+    }
+  }
+  return best !== null && bestD <= Math.max(2, Math.floor(word.length / 3)) ? best : null;
+}
+
+function keyName(pointer: string): string {
+  const parts = pointer.split('/').filter((p) => p.length > 0);
+  return parts.length === 0 ? '(block)' : parts.join('.');
+}
+
+const TYPE_WORDS: Record<string, string> = {
+  string: 'text',
+  number: 'a number',
+  integer: 'a whole number',
+  object: 'a map of "key: value" lines',
+  array: 'a list',
+  boolean: 'true or false',
+  'string,number': 'a value with a unit',
+};
+
+export function validateMetadata(kind: BlockKind, data: unknown): SchemaProblem[] {
+  const validate = validators().get(kind);
+  if (!validate) return [];
+  if (validate(data)) return [];
+  const errors = (validate.errors ?? []) as ErrorObject[];
+  const out: SchemaProblem[] = [];
+  // A missing "one of these keys" shows as an anyOf error over required errors: merge them.
+  const anyOfRequired = new Set<ErrorObject>();
+  for (const e of errors) {
+    if (e.keyword !== 'anyOf') continue;
+    const branches = errors.filter((r) => r.keyword === 'required' && r.instancePath === e.instancePath && r.schemaPath.startsWith(e.schemaPath + '/'));
+    if (branches.length > 0) {
+      branches.forEach((b) => anyOfRequired.add(b));
+      const keys = branches.map((b) => String((b.params as { missingProperty: string }).missingProperty));
+      out.push({ message: messages.missingOneOf(keys, kind), pointer: e.instancePath, atKey: e.instancePath !== '' });
+    }
+  }
+  for (const e of errors) {
+    if (anyOfRequired.has(e) || e.keyword === 'anyOf' || e.keyword === 'if') continue;
+    const pointer = e.instancePath;
+    const key = keyName(pointer);
+    switch (e.keyword) {
+      case 'required': {
+        const missing = String((e.params as { missingProperty: string }).missingProperty);
+        const desc = ((e.parentSchema as JsonSchema | undefined)?.properties as Record<string, JsonSchema> | undefined)?.[missing]?.description;
+        const name = pointer === '' ? missing : `${key}.${missing}`;
+        out.push({ message: messages.missingRequired(name, kind, typeof desc === 'string' ? desc : ''), pointer, atKey: pointer !== '' });
+        break;
+      }
+      case 'additionalProperties': {
+        const extra = String((e.params as { additionalProperty: string }).additionalProperty);
+        const allowed = Object.keys(((e.parentSchema as JsonSchema | undefined)?.properties as object | undefined) ?? {});
+        out.push({ message: messages.unknownKey(pointer === '' ? extra : `${key}.${extra}`, kind, suggest(extra, allowed)), pointer: `${pointer}/${extra}`, atKey: true });
+        break;
+      }
+      case 'type': {
+        const t = (e.params as { type: string | string[] }).type;
+        const ts = Array.isArray(t) ? t.join(',') : t;
+        out.push({ message: messages.wrongType(key, TYPE_WORDS[ts] ?? ts), pointer, atKey: false });
+        break;
+      }
+      case 'enum':
+        out.push({ message: messages.badValue(key, ((e.params as { allowedValues: unknown[] }).allowedValues ?? []).map(String)), pointer, atKey: false });
+        break;
+      case 'pattern':
+        out.push({ message: messages.badPattern(key, 'a block id (letters, digits and . _ - :)'), pointer, atKey: false });
+        break;
+      case 'minLength':
+        out.push({ message: messages.badPattern(key, 'not empty'), pointer, atKey: false });
+        break;
+      case 'minItems':
+      case 'maxItems':
+      case 'items':
+        out.push({ message: messages.badPattern(key, 'a list of two values, [low, high]'), pointer, atKey: false });
+        break;
+      case 'minimum':
+      case 'maximum':
+      case 'exclusiveMinimum':
+      case 'exclusiveMaximum':
+        out.push({ message: messages.outOfRange(key, `${e.message ?? ''}`), pointer, atKey: false });
+        break;
+      default:
+        out.push({ message: messages.schemaOther(key, e.message ?? e.keyword), pointer, atKey: false });
+    }
+  }
+  return out;
+}

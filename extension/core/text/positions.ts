@@ -1,0 +1,130 @@
+/**
+ * The one coordinate convention of the core.
+ *
+ * - An **offset** is a 0-based index into the document text in UTF-16 code units (a JavaScript
+ *   string index), counted after a leading byte-order mark has been removed (see `stripBom`).
+ * - A **Span** is a pair of offsets, `start` inclusive and `end` exclusive.
+ * - A **Position** is 0-based `line` and 0-based `character` (UTF-16 units within the line), the
+ *   convention of the Language Server Protocol.
+ * - The CLI and the JSON results print 1-based lines and columns; `toOneBased` is the only place
+ *   that adds the 1.
+ *
+ * Line breaks are `\n`, `\r\n` or a lone `\r`, as in CommonMark.
+ */
+
+/** Offsets, 0-based, end-exclusive. */
+export interface Span {
+  readonly start: number;
+  readonly end: number;
+}
+
+/** 0-based line and UTF-16 character, as in LSP. */
+export interface Position {
+  readonly line: number;
+  readonly character: number;
+}
+
+/** 0-based, end-exclusive positions. */
+export interface PositionRange {
+  readonly start: Position;
+  readonly end: Position;
+}
+
+/** 1-based, end-exclusive line and column, for printed output. */
+export interface OneBasedRange {
+  readonly line: number;
+  readonly column: number;
+  readonly endLine: number;
+  readonly endColumn: number;
+}
+
+const BOM = '\uFEFF';
+
+/** Removes one leading byte-order mark; every offset in the core is into the stripped text. */
+export function stripBom(text: string): string {
+  return text.startsWith(BOM) ? text.slice(1) : text;
+}
+
+/** Maps offsets to line/character and back for one text. Built once per document version. */
+export class LineIndex {
+  /** Offset where each line starts. */
+  private readonly lineStarts: number[];
+
+  constructor(readonly text: string) {
+    const starts = [0];
+    for (let i = 0; i < text.length; i++) {
+      const c = text.charCodeAt(i);
+      if (c === 13 /* \r */) {
+        if (text.charCodeAt(i + 1) === 10) i++;
+        starts.push(i + 1);
+      } else if (c === 10 /* \n */) {
+        starts.push(i + 1);
+      }
+    }
+    this.lineStarts = starts;
+  }
+
+  get lineCount(): number {
+    return this.lineStarts.length;
+  }
+
+  /** Offset of the first character of a 0-based line (clamped to the document). */
+  lineStart(line: number): number {
+    if (line <= 0) return 0;
+    if (line >= this.lineStarts.length) return this.text.length;
+    return this.lineStarts[line];
+  }
+
+  /** Offset just before the line break that ends a 0-based line. */
+  lineEnd(line: number): number {
+    if (line + 1 >= this.lineStarts.length) return this.text.length;
+    let end = this.lineStarts[line + 1];
+    if (end > 0 && this.text.charCodeAt(end - 1) === 10) end--;
+    if (end > 0 && this.text.charCodeAt(end - 1) === 13) end--;
+    return end;
+  }
+
+  /** The 0-based line holding an offset (binary search). */
+  lineAt(offset: number): number {
+    let lo = 0;
+    let hi = this.lineStarts.length - 1;
+    while (lo < hi) {
+      const mid = (lo + hi + 1) >> 1;
+      if (this.lineStarts[mid] <= offset) lo = mid;
+      else hi = mid - 1;
+    }
+    return lo;
+  }
+
+  positionAt(offset: number): Position {
+    const clamped = Math.max(0, Math.min(offset, this.text.length));
+    const line = this.lineAt(clamped);
+    return { line, character: clamped - this.lineStarts[line] };
+  }
+
+  offsetAt(position: Position): number {
+    const start = this.lineStart(position.line);
+    return Math.min(start + Math.max(0, position.character), this.lineEnd(position.line));
+  }
+
+  rangeOf(span: Span): PositionRange {
+    return { start: this.positionAt(span.start), end: this.positionAt(span.end) };
+  }
+}
+
+/** The single place where 0-based positions become the 1-based lines and columns users read. */
+export function toOneBased(range: PositionRange): OneBasedRange {
+  return {
+    line: range.start.line + 1,
+    column: range.start.character + 1,
+    endLine: range.end.line + 1,
+    endColumn: range.end.character + 1,
+  };
+}
+
+/** A span that covers at least one character where the text allows it, so no range is empty. */
+export function visibleSpan(span: Span, textLength: number): Span {
+  if (span.end > span.start) return span;
+  if (span.start < textLength) return { start: span.start, end: span.start + 1 };
+  return { start: Math.max(0, textLength - 1), end: textLength };
+}
