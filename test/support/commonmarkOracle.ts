@@ -23,7 +23,8 @@ export function oracleFencedBlocks(text: string): OracleBlock[] {
     const end = node.position?.end.offset ?? -1;
     const first = text.slice(start, start + 3);
     if (first !== '```' && first !== '~~~') return;
-    out.push({ start, end, lang: node.lang ?? null, meta: node.meta ?? null, value: node.value });
+    // Line endings inside the body are normalised to \n, as the scanner's body is.
+    out.push({ start, end, lang: node.lang ?? null, meta: node.meta ?? null, value: node.value.replace(/\r\n?/g, '\n') });
   });
   return out;
 }

@@ -49,6 +49,9 @@ export interface FencedBlock {
   readonly closed: boolean;
 }
 
+/** Why an open fence is being closed by its container: a new container, or anything else. */
+type CloseCause = 'container' | 'leaf';
+
 type ContainerKind = 'document' | 'quote' | 'list' | 'item';
 type LeafKind = 'paragraph' | 'fenced' | 'indented' | 'html';
 
@@ -73,8 +76,11 @@ interface OpenFence {
   readonly fenceLength: number;
   readonly fenceIndent: number;
   readonly rawInfo: string;
+  readonly untrimmedInfo: string;
   readonly infoSpan: Span;
   readonly lines: BodyLine[];
+  /** End of the opening fence line. */
+  readonly openEnd: number;
   /** End of the last line that belongs to the block. */
   lastEnd: number;
 }
@@ -159,6 +165,13 @@ class FenceScanner {
   private indent = 0;
   private indented = false;
   private blank = false;
+  private pendingInfo = '';
+  /** Containers were closed on the current line. */
+  private closedThisLine = false;
+  /** The open indented code began just after containers closed and has had only blank lines since. */
+  private indentedAfterExit = false;
+  /** The fence's own indentation was removed from the current line. */
+  private fenceIndentRemoved = false;
 
   constructor(private readonly text: string) {}
 
@@ -166,7 +179,23 @@ class FenceScanner {
     for (const { start, end } of splitLines(this.text)) {
       this.incorporateLine(start, end);
     }
-    this.closeContainersFrom(1, this.text.length);
+    // A final line break leaves an empty last line: a block quote does not continue over it,
+    // so a fence inside a quote ends with its last line, not at the end of the text.
+    const endsWithBreak = /[\r\n]$/.test(this.text);
+    if (endsWithBreak && this.containers.some((c) => c.kind === 'quote')) this.closeLeaf(this.text.length, 'leaf', false);
+    // A last line without a break that prefixes and the fence's indentation use up entirely is,
+    // for remark, no line: it is not in the body; when container prefixes alone used it up,
+    // the block ends where that line starts.
+    const fence = this.leaf?.kind === 'fenced' ? this.leaf.fence! : null;
+    const last = fence?.lines[fence.lines.length - 1];
+    if (fence && last && !endsWithBreak && last.pad === 0 && last.start === last.end && last.end === this.text.length && this.lineEnd > this.lineStart) {
+      fence.lines.pop();
+      if (this.containers.length > 1 && !this.fenceIndentRemoved) {
+        this.leaf = null;
+        this.finishFence(fence, this.lineStart, false);
+      }
+    }
+    this.closeContainersFrom(1, this.text.length, 'leaf');
     this.closeLeaf(this.text.length);
     return this.blocks;
   }
@@ -237,6 +266,8 @@ class FenceScanner {
     this.column = 0;
     this.partiallyConsumedTab = false;
     this.blank = false;
+    const leafBefore = this.leaf?.kind ?? null;
+    this.closedThisLine = false;
 
     // Phase 1: which open containers does this line continue?
     let matched = 1;
@@ -256,6 +287,10 @@ class FenceScanner {
     }
 
     let containerIndex = matched - 1;
+    // (remark does not count indented code that began on the previous line just after a
+    // container closed.)
+    const freshIndented = leafBefore === 'indented' && this.indentedAfterExit;
+    const interrupting = allContainersMatched && (leafBefore === 'paragraph' || (leafBefore === 'indented' && !freshIndented));
 
     // Phase 2: new block starts.
     for (;;) {
@@ -274,7 +309,7 @@ class FenceScanner {
         this.advanceNextNonspace();
         this.advanceOffset(1, false);
         if (isSpaceOrTab(this.peek(this.offset))) this.advanceOffset(1, true);
-        this.prepareChild(containerIndex, false);
+        this.prepareChild(containerIndex, false, 'container');
         this.containers.push({ kind: 'quote', hasContent: true });
         containerIndex = this.containers.length - 1;
         continue;
@@ -313,9 +348,12 @@ class FenceScanner {
         return;
       }
       if (!this.indented || container.kind === 'list') {
-        const listData = this.parseListMarker(inParagraph);
+        // As in remark (micromark): on a line that continues every container of an open
+        // paragraph or indented code, every list item obeys the interruption rules (ordered
+        // lists start at 1, no empty item), whichever container it opens in.
+        const listData = this.parseListMarker(interrupting);
         if (listData) {
-          this.truncateTo(containerIndex);
+          this.truncateTo(containerIndex, 'container');
           this.closeLeaf(this.lineStart);
           const parent = this.containers[this.containers.length - 1];
           if (parent.kind !== 'list' || !listsMatch(parent.list!, listData)) {
@@ -332,6 +370,7 @@ class FenceScanner {
         this.advanceOffset(CODE_INDENT, true);
         this.prepareChild(containerIndex, false);
         this.leaf = { kind: 'indented' };
+        this.indentedAfterExit = this.closedThisLine;
         return;
       }
       this.advanceNextNonspace();
@@ -354,11 +393,12 @@ class FenceScanner {
    * parser: deeper containers and the open leaf close; a list, which holds only items, closes
    * when anything else arrives.
    */
-  private prepareChild(index: number, isItem: boolean): void {
-    this.truncateTo(index);
+  private prepareChild(index: number, isItem: boolean, cause: CloseCause = 'leaf'): void {
+    this.truncateTo(index, cause);
     this.closeLeaf(this.lineStart);
     if (!isItem && this.containers.length > 1 && this.containers[this.containers.length - 1].kind === 'list') {
       this.containers.pop();
+      this.closedThisLine = true;
     }
     this.markContent();
   }
@@ -369,6 +409,7 @@ class FenceScanner {
     const fenceStart = this.lineStart + this.offset;
     this.advanceOffset(marker.length, false);
     const raw = this.line.slice(this.offset);
+    this.pendingInfo = raw.replace(/^[ \t]+/, '');
     const lead = raw.length - raw.replace(/^[ \t]+/, '').length;
     const rawInfo = raw.replace(/^[ \t]+|[ \t]+$/g, '');
     const infoStart = this.lineStart + this.offset + lead;
@@ -380,8 +421,10 @@ class FenceScanner {
         fenceLength: marker.length,
         fenceIndent,
         rawInfo,
+        untrimmedInfo: this.pendingInfo,
         infoSpan: { start: infoStart, end: infoStart + rawInfo.length },
         lines: [],
+        openEnd: this.lineEnd,
         lastEnd: this.lineEnd,
       },
     };
@@ -405,7 +448,8 @@ class FenceScanner {
         const list = container.list!;
         if (this.blank) {
           if (!container.hasContent) return false;
-          this.advanceNextNonspace();
+          // Only the item's own indentation is removed; spaces beyond it stay content (mdast).
+          this.advanceOffset(Math.min(this.indent, list.markerOffset + list.padding), true);
           return true;
         }
         if (this.indent >= list.markerOffset + list.padding) {
@@ -433,7 +477,7 @@ class FenceScanner {
         const rest = this.line.slice(this.nextNonspace);
         const close = this.indent <= 3 && rest[0] === fence.fenceChar ? FENCE_CLOSE.exec(rest) : null;
         if (close && close[0].length >= fence.fenceLength) {
-          const closeEnd = this.lineStart + this.nextNonspace + close[0].length;
+          const closeEnd = this.lineEnd; // trailing spaces after a closing fence belong to it
           this.finishFence(fence, closeEnd, true);
           this.leaf = null;
           return 'closed';
@@ -443,10 +487,12 @@ class FenceScanner {
           this.advanceOffset(1, true);
           i--;
         }
+        this.fenceIndentRemoved = i < fence.fenceIndent;
         return 'line';
       }
       case 'indented':
         if (this.indent >= CODE_INDENT) {
+          if (!this.blank) this.indentedAfterExit = false;
           this.advanceOffset(CODE_INDENT, true);
           return 'line';
         }
@@ -503,31 +549,44 @@ class FenceScanner {
   }
 
   /** Keeps containers[0..index]; anything deeper is closed before the current line. */
-  private truncateTo(index: number): void {
+  private truncateTo(index: number, cause: CloseCause = 'leaf'): void {
     if (index < this.containers.length - 1) {
-      this.closeContainersFrom(index + 1, this.lineStart);
+      this.closeContainersFrom(index + 1, this.lineStart, cause);
     }
   }
 
-  private closeContainersFrom(index: number, at: number): void {
+  private closeContainersFrom(index: number, at: number, cause: CloseCause): void {
     if (index >= this.containers.length) return;
-    this.closeLeaf(at);
+    this.closedThisLine = true;
+    this.closeLeaf(at, cause);
     this.containers.length = Math.max(1, index);
   }
 
-  /** Ends the open leaf. A fenced block left open ends after its last line (or at `at`). */
-  private closeLeaf(at: number): void {
+  /**
+   * Ends the open leaf. A fenced block that its container closes ends, as in mdast, at the
+   * start of the line when that line opens a new container (block quote, list item); otherwise
+   * after its last line, and a final empty line then belongs to the container, not the body.
+   * At the end of the document it ends at the end of the text.
+   */
+  private closeLeaf(at: number, cause: CloseCause = 'leaf', atEndOfText = at >= this.text.length): void {
     const leaf = this.leaf;
     this.leaf = null;
     if (!leaf || leaf.kind !== 'fenced') return;
     const fence = leaf.fence!;
-    const end = at >= this.text.length ? this.text.length : fence.lastEnd;
-    this.finishFence(fence, end, false);
+    if (atEndOfText) {
+      this.finishFence(fence, this.text.length, false);
+    } else if (cause === 'container') {
+      this.finishFence(fence, at, false);
+    } else {
+      const last = fence.lines[fence.lines.length - 1];
+      if (last && last.pad === 0 && last.start === last.end) fence.lines.pop();
+      this.finishFence(fence, fence.lastEnd, false);
+    }
   }
 
   private finishFence(fence: OpenFence, end: number, closed: boolean): void {
     const body = fence.lines.map((l) => ' '.repeat(l.pad) + this.text.slice(l.start, l.end)).join('\n');
-    const { lang, meta } = decodeInfoString(fence.rawInfo);
+    const { lang, meta } = decodeInfoString(fence.untrimmedInfo);
     this.blocks.push({
       span: { start: fence.start, end },
       rawInfo: fence.rawInfo,

@@ -1,7 +1,8 @@
 /**
  * Decodes a fenced block's info string as CommonMark does: backslash escapes of ASCII
  * punctuation and character references (named, decimal, hexadecimal) are replaced, and the
- * string splits at its first space or tab into `lang` and `meta`
+ * string splits at its first space or tab into `lang` and `meta`. As in remark, `meta` keeps
+ * any trailing spaces or tabs of the line
  * (https://spec.commonmark.org/0.31.2/#info-string, #backslash-escapes, #entity-and-numeric-character-references).
  *
  * Input policy: any string; an empty info string gives `lang` and `meta` null. Never throws.
@@ -12,11 +13,12 @@ const ESCAPABLE = /[!"#$%&'()*+,\-./:;<=>?@[\\\]^_`{|}~]/;
 const REFERENCE = /^&(?:#[xX]([0-9a-fA-F]{1,6});|#([0-9]{1,7});|([A-Za-z][A-Za-z0-9]{0,31});)/;
 
 export function decodeInfoString(raw: string): { lang: string | null; meta: string | null } {
-  if (raw.length === 0) return { lang: null, meta: null };
+  if (raw.trim().length === 0) return { lang: null, meta: null };
   const split = /[ \t]/.exec(raw);
   if (!split) return { lang: unescapeCommonMark(raw), meta: null };
   const lang = raw.slice(0, split.index);
   const meta = raw.slice(split.index).replace(/^[ \t]+/, '');
+  if (meta.replace(/[ \t]+$/, '').length === 0) return { lang: unescapeCommonMark(lang), meta: null };
   return { lang: unescapeCommonMark(lang), meta: meta.length > 0 ? unescapeCommonMark(meta) : null };
 }
 

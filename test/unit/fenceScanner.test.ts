@@ -1,0 +1,78 @@
+import assert from 'node:assert/strict';
+import spec from 'commonmark-spec';
+import { scanFencedBlocks } from '../../extension/core/scan/fenceScanner.js';
+import { oracleFencedBlocks } from '../support/commonmarkOracle.js';
+
+interface SpecExample {
+  markdown: string;
+  number: number;
+  section: string;
+}
+
+function mine(text: string) {
+  return scanFencedBlocks(text).map((b) => ({ start: b.span.start, end: b.span.end, lang: b.lang, meta: b.meta, value: b.body }));
+}
+
+describe('scanFencedBlocks', () => {
+  // Source: the CommonMark 0.31.2 specification's examples (npm commonmark-spec), with remark's
+  // parser (mdast-util-from-markdown) as the oracle for which fenced code blocks exist.
+  describe('agrees with remark on every CommonMark specification example', () => {
+    const examples = (spec as unknown as { tests: SpecExample[] }).tests;
+    it('has the whole specification', () => assert.ok(examples.length >= 650));
+    for (const ex of examples) {
+      it(`example ${ex.number} (${ex.section})`, () => {
+        const md = ex.markdown.replace(/→/g, '\t');
+        assert.deepEqual(mine(md), oracleFencedBlocks(md));
+      });
+    }
+  });
+
+  it('finds a data block with its info string split into lang and meta', () => {
+    const [b] = scanFencedBlocks('text\n\n```deposition D-17\nmaterial: x\n```\n');
+    assert.equal(b.lang, 'deposition');
+    assert.equal(b.meta, 'D-17');
+    assert.equal(b.body, 'material: x');
+    assert.equal(b.closed, true);
+  });
+
+  it('handles CRLF line ends', () => {
+    const text = '```ramp R-1\r\nfilm: D-1\r\n---\r\nT/K, h/nm\r\n```\r\n';
+    assert.deepEqual(mine(text), oracleFencedBlocks(text));
+    assert.equal(scanFencedBlocks(text)[0].body, 'film: D-1\n---\nT/K, h/nm');
+  });
+
+  it('handles a lone CR as a line end (CommonMark)', () => {
+    const text = '~~~ material M\rname: x\r~~~\r';
+    assert.deepEqual(mine(text), oracleFencedBlocks(text));
+  });
+
+  it('maps body lines back to source offsets inside a block quote', () => {
+    const text = '> ```material M-1\n> name: x\n> tg: 300 K\n> ```\n';
+    const [b] = scanFencedBlocks(text);
+    assert.equal(b.body, 'name: x\ntg: 300 K');
+    assert.equal(text.slice(b.bodyLines[1].start, b.bodyLines[1].end), 'tg: 300 K');
+  });
+
+  it('keeps a fence inside a list item, indented body removed', () => {
+    const text = '1. a step\n\n   ```deposition D-2\n   rate: 1 nm/s\n   ```\n';
+    assert.deepEqual(mine(text), oracleFencedBlocks(text));
+    assert.equal(scanFencedBlocks(text)[0].body, 'rate: 1 nm/s');
+  });
+
+  it('runs an unclosed fence to the end of the document', () => {
+    const text = '```material M\nname: x\n\nmore\n';
+    const [b] = scanFencedBlocks(text);
+    assert.equal(b.closed, false);
+    assert.equal(b.span.end, text.length);
+    assert.deepEqual(mine(text), oracleFencedBlocks(text));
+  });
+
+  it('does not see fences in indented code or HTML blocks', () => {
+    assert.equal(scanFencedBlocks('    ```material M\n    name: x\n    ```\n').length, 0);
+    assert.equal(scanFencedBlocks('<div>\n```material M\nname: x\n```\n</div>\n').length, 0);
+  });
+
+  it('returns nothing for an empty document', () => {
+    assert.deepEqual(scanFencedBlocks(''), []);
+  });
+});
