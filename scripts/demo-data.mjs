@@ -1,3 +1,4 @@
+/* global console */
 // Writes the demo notebook's data files (fixtures/demo/data/). The scenario is invented:
 // fictional materials, synthetic curves from simple models plus seeded noise.
 // Run: node scripts/demo-data.mjs

@@ -53,6 +53,8 @@ export interface NotebookReport {
 
 export interface NotebookOptions {
   readonly severity?: SeverityOverrides;
+  /** Data files larger than this many bytes are refused (default MAX_DATA_FILE_BYTES). */
+  readonly maxDataFileBytes?: number;
 }
 
 interface FileEntry {
@@ -132,7 +134,7 @@ export class Notebook {
   private safeParse(path: string, fence: Parameters<typeof parseBlock>[0]['fence'], header: Parameters<typeof parseBlock>[0]['header'], source: string, out: Diagnostic[]): ParsedBlock | null {
     try {
       this.stats.parsed++;
-      return parseBlock({ file: path, fence, header, source }, this.host);
+      return parseBlock({ file: path, fence, header, source }, this.host, this.options.maxDataFileBytes);
     } catch (e) {
       out.push(at(messages.internalError(e instanceof Error ? e.message : String(e)), header.kindSpan));
       return null;
@@ -142,6 +144,12 @@ export class Notebook {
   private remember<V>(cache: Map<string, V>, key: string, value: V): void {
     if (cache.size >= MAX_CACHE) cache.clear();
     cache.set(key, value);
+  }
+
+  /** The hash a results block must carry to freeze the current results of a block. */
+  inputsHashOf(id: string): string | undefined {
+    const run = new AnalysisRun(this.files, this.analysisCache, this.stats, (k, v) => this.remember(this.analysisCache, k, v));
+    return run.inputsHashOfId(id);
   }
 
   /** Analyses the notebook and reports the given files (all files when omitted). */
@@ -261,6 +269,11 @@ class AnalysisRun {
     this.memo.set(block, entry);
     this.store(block.key, entry);
     return entry;
+  }
+
+  inputsHashOfId(id: string): string | undefined {
+    const b = this.first(id);
+    return b && b.kind !== 'results' ? this.inputsHash(b) : undefined;
   }
 
   /** Hash of everything a block's results depend on: what a results block freezes. */

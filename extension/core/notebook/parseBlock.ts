@@ -138,7 +138,7 @@ export function blockTextKey(file: string, source: string): string {
   return hashText(`${file}\u0000${source}`);
 }
 
-export function parseBlock(input: ParseInput, host: NotebookHost): ParsedBlock {
+export function parseBlock(input: ParseInput, host: NotebookHost, maxDataFileBytes = MAX_DATA_FILE_BYTES): ParsedBlock {
   const fence = rebase(input.fence);
   const header = rebaseHeader(input.header, input.fence.span.start);
   const { kind } = header;
@@ -253,10 +253,10 @@ export function parseBlock(input: ParseInput, host: NotebookHost): ParsedBlock {
       if (!resolved.ok) {
         push(resolved.reason === 'absolute' ? messages.dataAbsolute(dataValue) : messages.dataOutsideRoot(dataValue), valueSpan);
       } else {
-        const read = host.readDataFile(resolved.path, MAX_DATA_FILE_BYTES);
+        const read = host.readDataFile(resolved.path, maxDataFileBytes);
         if (!read.ok) {
           if (read.reason === 'missing') push(messages.dataMissing(dataValue), valueSpan);
-          else if (read.reason === 'too-large') push(messages.dataTooLarge(dataValue, read.size ?? 0, MAX_DATA_FILE_BYTES), valueSpan);
+          else if (read.reason === 'too-large') push(messages.dataTooLarge(dataValue, read.size ?? 0, maxDataFileBytes), valueSpan);
           else if (read.reason === 'outside-root') push(messages.dataOutsideRoot(dataValue), valueSpan);
           else push(messages.dataUnreadable(dataValue, read.detail ?? 'unknown error'), valueSpan);
         } else {

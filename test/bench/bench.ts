@@ -1,0 +1,52 @@
+/**
+ * `npm run bench`: how much cheaper an edit is than a cold analysis. Machines are shared and
+ * noisy, so this prints ratios; it asserts nothing.
+ *
+ * Notebook: 40 files × 25 deposition blocks + 1 material file (1000 data blocks).
+ */
+import { InMemoryHost, Notebook } from '../../extension/core/index.js';
+
+const MATERIAL = '```material M-1\nname: bench glass\ntg: 300 K\ntg_source: bench\n```\n';
+const block = (f: number, i: number): string =>
+  `Prose about film ${f}-${i}.\n\n\`\`\`deposition D-${f}-${i}\nmaterial: M-1\nsubstrate_temperature: ${250 + (i % 20)} K\nrate: 0.2 nm/s\nduration: 1000 s\nthickness: 200 nm\nbase_pressure: 1e-6 Pa\nsubstrate: silicon\n\`\`\`\n`;
+
+function files(): Map<string, string> {
+  const m = new Map<string, string>([['materials.md', MATERIAL]]);
+  for (let f = 0; f < 40; f++) m.set(`days/day-${f}.md`, Array.from({ length: 25 }, (_, i) => block(f, i)).join('\n'));
+  return m;
+}
+
+function time(fn: () => void, repeat: number): number {
+  const t0 = performance.now();
+  for (let i = 0; i < repeat; i++) fn();
+  return (performance.now() - t0) / repeat;
+}
+
+const texts = files();
+const cold = time(() => {
+  const nb = new Notebook(new InMemoryHost());
+  for (const [p, t] of texts) nb.setFile(p, t);
+  nb.analyze();
+}, 5);
+
+const nb = new Notebook(new InMemoryHost());
+for (const [p, t] of texts) nb.setFile(p, t);
+nb.analyze();
+const target = 'days/day-7.md';
+const original = texts.get(target)!;
+let k = 0;
+const edit = time(() => {
+  k++;
+  const edited = original.replace('substrate_temperature: 257 K', `substrate_temperature: ${257 + (k % 2)} K`);
+  nb.setFile(target, edited);
+  nb.analyze([target]);
+}, 50);
+const prose = time(() => {
+  k++;
+  nb.setFile(target, `Typing ${k}\n` + original);
+  nb.analyze([target]);
+}, 50);
+
+console.log(`cold analysis of 1000 blocks:            ${cold.toFixed(1)} ms`);
+console.log(`edit one value, re-check its file:       ${edit.toFixed(2)} ms  (${(cold / edit).toFixed(0)}× faster than cold)`);
+console.log(`type prose above 25 blocks, re-check:    ${prose.toFixed(2)} ms  (${(cold / prose).toFixed(0)}× faster than cold)`);

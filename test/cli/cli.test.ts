@@ -1,0 +1,68 @@
+import assert from 'node:assert/strict';
+import { spawnSync } from 'node:child_process';
+import * as path from 'node:path';
+import { runCli } from '../../extension/cli/main.js';
+import { REPO } from '../support/loadNotebook.js';
+
+function run(args: string[]): { code: number; out: string; err: string } {
+  let out = '';
+  let err = '';
+  const code = runCli(args, { out: (t) => (out += t), err: (t) => (err += t), cwd: REPO });
+  return { code, out, err };
+}
+
+describe('vitrine CLI', () => {
+  it('check on the demo: warnings only, exit 0, and a summary table', () => {
+    const r = run(['check', 'fixtures/demo', '--summary']);
+    assert.equal(r.code, 0, r.out + r.err);
+    assert.match(r.out, /^fixtures\/demo\/days\/2026-03-06\.md:\d+:\d+: warning: .* \[meta\.missing-recommended\]$/m);
+    assert.match(r.out, /0 errors/);
+    assert.match(r.out, /^film\s+material\s+Tsub\/K\s+Tsub\/Tg/m);
+    assert.match(r.out, /^D-02\s+amberine-3\s+270\.0\s+0\.849/m);
+  });
+
+  it('check on the bad corpus: file:line:col: severity: message [code], exit 1', () => {
+    const r = run(['check', 'fixtures/bad']);
+    assert.equal(r.code, 1);
+    assert.match(r.out, /^fixtures\/bad\/units\.md:5:24: error: .* \[quantity\.wrong-dimension\]$/m);
+    assert.doesNotMatch(r.out + r.err, /\n\s+at /, 'no stack trace');
+  });
+
+  it('check on one file resolves references from its folder', () => {
+    const r = run(['check', 'fixtures/demo/materials.md']);
+    assert.equal(r.code, 0, r.out);
+    assert.match(r.out, /^1 file, 3 data blocks/m);
+  });
+
+  it('analyze --json gives the results contract with 1-based lines', () => {
+    const r = run(['analyze', 'fixtures/demo', '--json']);
+    assert.equal(r.code, 0);
+    const json = JSON.parse(r.out);
+    const day = json.files.find((f: { path: string }) => f.path === 'days/2026-03-02.md');
+    const d02 = day.blocks.find((b: { id: string }) => b.id === 'D-02');
+    assert.equal(d02.line, 24);
+    assert.equal(d02.kind, 'deposition');
+    assert.ok(Math.abs(d02.results.tsub_over_tg.value - 270 / 318) < 1e-9);
+    assert.equal(d02.results.tsub_over_tg.unit, '1');
+    assert.ok(d02.results.tsub_over_tg.method.length > 0);
+    assert.ok(json.files.every((f: { blocks: unknown[]; diagnostics: unknown[] }) => Array.isArray(f.blocks) && Array.isArray(f.diagnostics)));
+  });
+
+  it('usage errors exit 2 with the usage text', () => {
+    for (const args of [[], ['frobnicate', 'x'], ['check'], ['analyze', 'fixtures/demo'], ['check', 'no/such/folder'], ['check', 'fixtures/demo', '--bogus']]) {
+      const r = run(args);
+      assert.equal(r.code, 2, args.join(' '));
+      assert.match(r.err + r.out, /usage: vitrine/);
+    }
+  });
+
+  it('the built executable runs and sets its exit status', function () {
+    const bin = path.join(REPO, 'dist', 'cli.js');
+    const ok = spawnSync(process.execPath, [bin, 'check', 'fixtures/demo'], { cwd: REPO, encoding: 'utf8' });
+    if (ok.error || (ok.status !== 0 && /Cannot find module/.test(ok.stderr))) this.skip();
+    assert.equal(ok.status, 0, ok.stderr);
+    const bad = spawnSync(process.execPath, [bin, 'check', 'fixtures/bad'], { cwd: REPO, encoding: 'utf8' });
+    assert.equal(bad.status, 1);
+    assert.equal(bad.stderr, '');
+  });
+});
