@@ -1,0 +1,269 @@
+/**
+ * Continuous two-line ("hinge") regression with an optimised breakpoint:
+ *   h(T) = c + s_g·min(T − T_b, 0) + s_l·max(T − T_b, 0),   Tg ≡ T_b.
+ *
+ * Method: exact search of Hudson (J. Am. Stat. Assoc. 61, 1097 (1966)): for every split of the
+ * sorted data the two separately fitted lines are a candidate when they meet inside the gap of
+ * the split; otherwise the optimum of that gap lies at a data point, where the constrained fit is
+ * evaluated directly. Every evaluation is O(1) from prefix sums of centred data, so the search is
+ * O(n) after an O(n log n) sort. The 95 % interval is the profile-likelihood set
+ * SSE(T_b) ≤ SSE_min·(1 + F₀.₉₅(1, n − 4)/(n − 4)) (Lerman, Appl. Stat. 29, 77 (1980);
+ * METHODS.md §1, Method A). Whether there is a transition at all is an F-test against one line.
+ *
+ * Policy: fewer than 2·nMin points, or a span too short for two sides of `minSpan`, gives a
+ * `reason` instead of a fit. Never throws.
+ */
+import { fisherFCdf, fisherFQuantile } from './distributions.js';
+
+export interface HingeOptions {
+  /** Points required on each side (default 8). */
+  readonly nMin?: number;
+  /** Temperature span required on each side, K (default 10). */
+  readonly minSpan?: number;
+}
+
+export interface HingeFit {
+  readonly n: number;
+  readonly breakpoint: number;
+  /** 95 % profile-likelihood interval of the breakpoint. */
+  readonly interval: readonly [number, number];
+  /** The interval reached the edge of the allowed range (a bound, not an interval). */
+  readonly intervalOpen: boolean;
+  /** Fitted value at the breakpoint. */
+  readonly hAtBreak: number;
+  readonly slopeLow: number;
+  readonly slopeHigh: number;
+  readonly seSlopeLow: number;
+  readonly seSlopeHigh: number;
+  readonly sse: number;
+  /** Residual standard deviation, √(SSE/(n − 4)). */
+  readonly sigma: number;
+  /** F-test of the hinge against one straight line: p-value. */
+  readonly pTransition: number;
+  /** Optimum at the edge of the allowed breakpoint range. */
+  readonly atEdge: boolean;
+  readonly nLow: number;
+  readonly nHigh: number;
+  /** Durbin–Watson statistic of the residuals in temperature order. */
+  readonly durbinWatson: number;
+  readonly range: readonly [number, number];
+}
+
+export type HingeResult = { readonly ok: true; readonly fit: HingeFit } | { readonly ok: false; readonly reason: 'too-few-points' | 'too-short-span' | 'degenerate' };
+
+class PrefixSums {
+  readonly n: number;
+  readonly sx: Float64Array;
+  readonly sxx: Float64Array;
+  readonly sy: Float64Array;
+  readonly sxy: Float64Array;
+  readonly syy: Float64Array;
+
+  constructor(x: Float64Array, y: Float64Array) {
+    const n = x.length;
+    this.n = n;
+    this.sx = new Float64Array(n + 1);
+    this.sxx = new Float64Array(n + 1);
+    this.sy = new Float64Array(n + 1);
+    this.sxy = new Float64Array(n + 1);
+    this.syy = new Float64Array(n + 1);
+    for (let i = 0; i < n; i++) {
+      this.sx[i + 1] = this.sx[i] + x[i];
+      this.sxx[i + 1] = this.sxx[i] + x[i] * x[i];
+      this.sy[i + 1] = this.sy[i] + y[i];
+      this.sxy[i + 1] = this.sxy[i] + x[i] * y[i];
+      this.syy[i + 1] = this.syy[i] + y[i] * y[i];
+    }
+  }
+}
+
+/** SSE and coefficients of a separate line over sorted indices [a, b). */
+function lineOver(p: PrefixSums, a: number, b: number): { sse: number; slope: number; intercept: number } | null {
+  const m = b - a;
+  if (m < 2) return null;
+  const sx = p.sx[b] - p.sx[a];
+  const sy = p.sy[b] - p.sy[a];
+  const cxx = p.sxx[b] - p.sxx[a] - (sx * sx) / m;
+  const cxy = p.sxy[b] - p.sxy[a] - (sx * sy) / m;
+  const cyy = p.syy[b] - p.syy[a] - (sy * sy) / m;
+  if (!(cxx > 0)) return null;
+  const slope = cxy / cxx;
+  return { sse: Math.max(0, cyy - slope * cxy), slope, intercept: sy / m - (slope * sx) / m };
+}
+
+/** Constrained hinge fit with the joint at tb, k = number of points with x ≤ tb. */
+function hingeAt(p: PrefixSums, tb: number, k: number): { sse: number; c: number; sg: number; sl: number; inv: number[][] } | null {
+  const n = p.n;
+  const sxL = p.sx[k];
+  const sxR = p.sx[n] - sxL;
+  const nR = n - k;
+  const su = sxL - k * tb;
+  const sv = sxR - nR * tb;
+  const suu = p.sxx[k] - 2 * tb * sxL + k * tb * tb;
+  const svv = p.sxx[n] - p.sxx[k] - 2 * tb * sxR + nR * tb * tb;
+  const sy = p.sy[n];
+  const suy = p.sxy[k] - tb * p.sy[k];
+  const svy = p.sxy[n] - p.sxy[k] - tb * (p.sy[n] - p.sy[k]);
+  // Solve [[n, su, sv], [su, suu, 0], [sv, 0, svv]] β = [sy, suy, svy] by eliminating the
+  // slopes: β1 = (suy − su·c)/suu, β2 = (svy − sv·c)/svv.
+  if (!(suu > 0) || !(svv > 0)) return null;
+  const d = n - (su * su) / suu - (sv * sv) / svv;
+  if (!(Math.abs(d) > 0)) return null;
+  const c = (sy - (su * suy) / suu - (sv * svy) / svv) / d;
+  const sg = (suy - su * c) / suu;
+  const sl = (svy - sv * c) / svv;
+  const sse = Math.max(0, p.syy[n] - (c * sy + sg * suy + sl * svy));
+  // Inverse of the 3×3 matrix (for covariances), by the Schur complement on c.
+  const ic = 1 / d;
+  const a = -su / suu;
+  const b = -sv / svv;
+  const inv = [
+    [ic, ic * a, ic * b],
+    [ic * a, 1 / suu + ic * a * a, ic * a * b],
+    [ic * b, ic * a * b, 1 / svv + ic * b * b],
+  ];
+  return { sse, c, sg, sl, inv };
+}
+
+function countAtOrBelow(x: Float64Array, v: number): number {
+  let lo = 0;
+  let hi = x.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (x[mid] <= v) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
+}
+
+export function fitHinge(xIn: ArrayLike<number>, yIn: ArrayLike<number>, options: HingeOptions = {}): HingeResult {
+  const nMin = options.nMin ?? 8;
+  const minSpan = options.minSpan ?? 10;
+  const n = xIn.length;
+  if (n < 2 * nMin || n < 5) return { ok: false, reason: 'too-few-points' };
+  const order = Array.from({ length: n }, (_, i) => i).sort((a, b) => xIn[a] - xIn[b]);
+  let mx = 0;
+  let my = 0;
+  for (let i = 0; i < n; i++) {
+    mx += xIn[i];
+    my += yIn[i];
+  }
+  mx /= n;
+  my /= n;
+  const x = new Float64Array(n);
+  const y = new Float64Array(n);
+  order.forEach((o, i) => {
+    x[i] = xIn[o] - mx;
+    y[i] = yIn[o] - my;
+  });
+  const p = new PrefixSums(x, y);
+
+  const lo = Math.max(x[nMin - 1], x[0] + minSpan);
+  const hi = Math.min(x[n - nMin], x[n - 1] - minSpan);
+  if (!(lo <= hi)) return { ok: false, reason: x[n - 1] - x[0] < 2 * minSpan ? 'too-short-span' : 'too-few-points' };
+
+  let best = { sse: Infinity, tb: NaN };
+  const consider = (tb: number): void => {
+    if (!(tb >= lo && tb <= hi)) return;
+    const h = hingeAt(p, tb, countAtOrBelow(x, tb));
+    if (h && h.sse < best.sse) best = { sse: h.sse, tb };
+  };
+  consider(lo);
+  consider(hi);
+  for (let k = 1; k < n; k++) {
+    const xa = x[k - 1];
+    const xb = x[k];
+    if (xb < lo || xa > hi) continue;
+    if (xa >= lo && xa <= hi) consider(xa);
+    if (xb > xa) {
+      const left = lineOver(p, 0, k);
+      const right = lineOver(p, k, n);
+      if (left && right && left.slope !== right.slope) {
+        const tb = (right.intercept - left.intercept) / (left.slope - right.slope);
+        if (tb > xa && tb < xb && tb >= lo && tb <= hi) {
+          const sse = left.sse + right.sse;
+          if (sse < best.sse) best = { sse, tb };
+        }
+      }
+    }
+  }
+  if (!Number.isFinite(best.tb)) return { ok: false, reason: 'degenerate' };
+
+  const tb = best.tb;
+  const final = hingeAt(p, tb, countAtOrBelow(x, tb));
+  if (!final) return { ok: false, reason: 'degenerate' };
+  const dof = n - 4;
+  const sse = final.sse;
+  const sigma2 = dof > 0 ? sse / dof : 0;
+
+  // Profile-likelihood interval: walk out from the optimum, then bisect the crossing.
+  const threshold = sse * (1 + fisherFQuantile(0.95, 1, Math.max(1, dof)) / Math.max(1, dof));
+  const profile = (t: number): number => hingeAt(p, t, countAtOrBelow(x, t))?.sse ?? Infinity;
+  const step = Math.max((hi - lo) / 20000, 1e-6);
+  const edge = (dir: 1 | -1): { at: number; open: boolean } => {
+    const limit = dir > 0 ? hi : lo;
+    let inside = tb;
+    let t = tb;
+    let grow = step;
+    for (;;) {
+      const next = dir > 0 ? Math.min(limit, t + grow) : Math.max(limit, t - grow);
+      if (profile(next) > threshold) {
+        let a = inside;
+        let b = next;
+        for (let i = 0; i < 60; i++) {
+          const m = 0.5 * (a + b);
+          if (profile(m) > threshold) b = m;
+          else a = m;
+        }
+        return { at: 0.5 * (a + b), open: false };
+      }
+      inside = next;
+      t = next;
+      if (next === limit) return { at: limit, open: true };
+      grow *= 1.5;
+    }
+  };
+  const low = sse > 0 ? edge(-1) : { at: tb, open: false };
+  const high = sse > 0 ? edge(1) : { at: tb, open: false };
+
+  const line = lineOver(p, 0, n);
+  const sseLine = line ? line.sse : Infinity;
+  const fStat = dof > 0 && sse > 0 ? (sseLine - sse) / (sse / dof) : Infinity;
+  const pTransition = Number.isFinite(fStat) ? 1 - fisherFCdf(Math.max(0, fStat), 1, Math.max(1, dof)) : 0;
+
+  // Durbin–Watson on residuals in temperature order.
+  let num = 0;
+  let den = 0;
+  let prev = 0;
+  for (let i = 0; i < n; i++) {
+    const u = Math.min(x[i] - tb, 0);
+    const v = Math.max(x[i] - tb, 0);
+    const e = y[i] - (final.c + final.sg * u + final.sl * v);
+    if (i > 0) num += (e - prev) * (e - prev);
+    den += e * e;
+    prev = e;
+  }
+  const nLow = countAtOrBelow(x, tb);
+  return {
+    ok: true,
+    fit: {
+      n,
+      breakpoint: tb + mx,
+      interval: [low.at + mx, high.at + mx],
+      intervalOpen: low.open || high.open,
+      hAtBreak: final.c + my,
+      slopeLow: final.sg,
+      slopeHigh: final.sl,
+      seSlopeLow: Math.sqrt(sigma2 * final.inv[1][1]),
+      seSlopeHigh: Math.sqrt(sigma2 * final.inv[2][2]),
+      sse,
+      sigma: Math.sqrt(sigma2),
+      pTransition,
+      atEdge: tb <= lo + 1e-9 * Math.max(1, Math.abs(lo)) || tb >= hi - 1e-9 * Math.max(1, Math.abs(hi)),
+      nLow,
+      nHigh: n - nLow,
+      durbinWatson: den > 0 ? num / den : 2,
+      range: [x[0] + mx, x[n - 1] + mx],
+    },
+  };
+}
