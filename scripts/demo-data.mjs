@@ -49,8 +49,8 @@ function write(name, header, rows, sep, digits) {
   writeFileSync(`${dir}/${name}`, text);
 }
 
-write('D-02-cycle.csv', 't/s, T/K, h/nm', cycle({ seed: 2, tsub: 270, tg: 318, onset: 334, h0: 412, gain: 1.1, tmax: 345 }), ', ', [0, 2, 3]);
-write('D-03-cycle.tsv', 't (s)\tT (K)\th (nm)', cycle({ seed: 3, tsub: 296, tg: 318, onset: 326, h0: 388, gain: 0.35, tmax: 345 }), '\t', [0, 2, 3]);
+write('D-02-cycle.csv', 't/s, T/K, h/nm', cycle({ seed: 2, tsub: 270, tg: 314, onset: 334, h0: 412, gain: 1.1, tmax: 345 }), ', ', [0, 2, 3]);
+write('D-03-cycle.tsv', 't (s)\tT (K)\th (nm)', cycle({ seed: 3, tsub: 296, tg: 314, onset: 326, h0: 388, gain: 0.35, tmax: 345 }), '\t', [0, 2, 3]);
 
 // Isothermal hold above Tg: plateau, linear front, plateau.
 {

@@ -7,8 +7,10 @@ function num(v: number | undefined, digits: number): string {
 
 function res(v: ResultValue | undefined, digits: number): string {
   if (!v) return '—';
-  const u = v.uncertainty !== undefined ? ` ± ${v.uncertainty.toFixed(digits)}` : '';
-  return `${v.value.toFixed(digits)}${u}`;
+  if (v.uncertainty === undefined) return v.value.toFixed(digits);
+  // Two significant digits of uncertainty, and the value to the same decimal place.
+  const places = Math.max(digits, Math.min(6, 1 - Math.floor(Math.log10(Math.max(v.uncertainty, 1e-12)))));
+  return `${v.value.toFixed(places)} ± ${v.uncertainty.toFixed(places)}`;
 }
 
 export function summaryTable(rows: readonly FilmSummary[]): string {

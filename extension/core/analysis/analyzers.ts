@@ -3,13 +3,14 @@ import type { BlockKind } from '../scan/blockHeader.js';
 import { NO_ANALYSIS, type Analyzer } from './context.js';
 import { analyzeDeposition } from './depositionAnalysis.js';
 import { analyzeMaterial } from './materialAnalysis.js';
+import { analyzeRamp } from './rampAnalysis.js';
 
 const none: Analyzer = () => NO_ANALYSIS;
 
 export const ANALYZERS: Readonly<Record<BlockKind, Analyzer>> = {
   material: analyzeMaterial,
   deposition: analyzeDeposition,
-  ramp: none,
+  ramp: analyzeRamp,
   isotherm: none,
   dsc: none,
   relaxation: none,

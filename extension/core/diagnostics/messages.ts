@@ -122,6 +122,34 @@ export const messages = {
   vftTgDisagrees: (tgVft: number, tg: number) =>
     msg('material.tg-vft-disagrees', 'warning', `The VFT parameters give Tg = ${fmt(tgVft)} K (τ = 100 s), ${fmt(Math.abs(tgVft - tg), 3)} K from the stated tg ${fmt(tg)} K. Check the parameters or the tg.`),
 
+  // Ramps
+  rampNoThickness: () => msg('table.missing-column', 'error', 'The ramp table needs a temperature column (T) and a thickness (h) or specific volume (V) column.'),
+  rampMixedDirection: (direction: string) =>
+    msg('ramp.mixed-direction', 'error', `The temperature steps back by more than 0.1 K inside a ${direction} segment: heating and cooling are mixed. Add a time column or split the scan.`),
+  rampRateMismatch: (measured: number, nominal: number) =>
+    msg('ramp.rate-mismatch', 'warning', `The measured rate is ${fmt(measured, 3)} K/min, more than 10 % from the stated ${fmt(nominal, 3)} K/min.`),
+  rampNoCooling: () => msg('ramp.no-cooling', 'info', 'This ramp has no cooling segment, so no Tg is computed: Tg is taken from cooling only (heating is biased by overshoot).'),
+  rampTooFewPoints: (side: string) =>
+    msg('ramp.too-few-points', 'error', `The ${side} has fewer than 8 points or less than 10 K of span on one side of the transition; Tg cannot be fitted. Extend the scan.`),
+  rampNoTransition: (p: number) =>
+    msg('ramp.no-transition', 'warning', `No transition detected in the cooling segment (one straight line fits as well, p = ${fmt(p, 2)}).`),
+  rampTgAtEdge: () => msg('ramp.tg-at-edge', 'error', 'The best breakpoint sits at the edge of the allowed range; the scan does not bracket Tg. Extend the temperature range.'),
+  rampWeakTransition: (ratio: number) =>
+    msg('ramp.weak-transition', 'warning', `The liquid and glass slopes differ little (ratio ${fmt(ratio, 3)} < 1.3): the transition is weak or absent.`),
+  rampCurvature: (dw: number) =>
+    msg('ramp.curvature', 'warning', `The residuals are strongly correlated (Durbin–Watson ${fmt(dw, 2)} < 1): the data curve away from two straight lines (aging at the low end, evaporation or crystallisation at the high end, or a broad transition). Consider setting windows.`),
+  rampTgFar: (tg: number, ref: number, rate: number) =>
+    msg('ramp.tg-far-from-reference', 'warning', `Tg = ${fmt(tg)} K at ${fmt(rate, 3)} K/min is more than 10 K from the material's standard Tg (${fmt(ref)} K).`),
+  rampFewLinePoints: (line: string, n: number) => msg('ramp.few-points', 'warning', `Only ${n} points define the ${line} line (fewer than 8).`),
+  rampNoLcReference: () =>
+    msg('ramp.no-lc-reference', 'error', 'No liquid-cooled reference: the ramp needs a cooling segment after the first heating to compute the density gain.'),
+  rampSclNotSteeper: () =>
+    msg('ramp.scl-not-steeper', 'error', 'The supercooled-liquid line is not steeper than the as-deposited glass line; onset and fictive temperature cannot be placed.'),
+  rampTfExtrapolated: (tf: number, tmin: number) =>
+    msg('ramp.tf-extrapolated', 'warning', `The fictive temperature ${fmt(tf)} K lies more than 20 K below the lowest measured temperature (${fmt(tmin)} K): the extrapolation dominates its uncertainty.`),
+  rampNoOnset: () => msg('ramp.no-onset', 'warning', 'The first heating shows no departure from the as-deposited line: no transformation onset found in this scan.'),
+  rampSlopesEqual: (what: string) => msg('ramp.parallel-lines', 'warning', `The two lines for ${what} are not clearly different in slope (t-test, p > 0.05); the intersection is unreliable.`),
+
   // Results blocks
   resultsStale: (id: string) =>
     msg('results.stale', 'warning', `These frozen results no longer match the inputs of "${id}"; the data or metadata changed since they were written.`),

@@ -46,7 +46,8 @@ export function jsonDiagnostic(d: Diagnostic, lines: LineIndex): JsonDiagnostic 
 /** Rounds to 12 significant digits so that golden files do not churn on the last bit. */
 function tidy(v: ResultValue): ResultValue {
   const r = (x: number): number => (Number.isFinite(x) ? Number(x.toPrecision(12)) : x);
-  return v.uncertainty !== undefined ? { ...v, value: r(v.value), uncertainty: r(v.uncertainty) } : { ...v, value: r(v.value) };
+  const out: ResultValue = v.uncertainty !== undefined ? { ...v, value: r(v.value), uncertainty: r(v.uncertainty) } : { ...v, value: r(v.value) };
+  return v.interval ? { ...out, interval: [r(v.interval[0]), r(v.interval[1])] } : out;
 }
 
 export function toJsonReport(report: NotebookReport, pathPrefix = ''): JsonReport {

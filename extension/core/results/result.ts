@@ -4,10 +4,13 @@ export interface ResultValue {
   readonly unit: string;
   readonly uncertainty?: number;
   readonly method: string;
+  /** A 95 % interval or, for a bracket, the range between the methods' values. */
+  readonly interval?: readonly [number, number];
 }
 
 export type Results = Readonly<Record<string, ResultValue>>;
 
-export function result(value: number, unit: string, method: string, uncertainty?: number): ResultValue {
-  return uncertainty !== undefined && Number.isFinite(uncertainty) ? { value, unit, uncertainty, method } : { value, unit, method };
+export function result(value: number, unit: string, method: string, uncertainty?: number, interval?: readonly [number, number]): ResultValue {
+  const base: ResultValue = uncertainty !== undefined && Number.isFinite(uncertainty) ? { value, unit, uncertainty, method } : { value, unit, method };
+  return interval && interval.every(Number.isFinite) ? { ...base, interval } : base;
 }

@@ -1,0 +1,316 @@
+/**
+ * Ramp analysis: thickness (or specific volume) against temperature (METHODS.md §§0–3).
+ *
+ * 1. The scan is split into heating, cooling and isothermal segments (segments.ts).
+ * 2. Tg from the longest cooling segment: the continuous two-line hinge fit with an optimised
+ *    breakpoint and its profile-likelihood interval (hingeFit.ts, Method A); with `windows.glass`
+ *    and `windows.liquid` set, the intersection of two window fits instead (Method B).
+ *    α = (1/h)(dh/dT) of each line at Tg.
+ * 3. When the scan starts with heating, that segment is taken as the first heating of the
+ *    as-deposited film: the as-deposited (VD) line is fitted from the start until the data leave
+ *    it (3 consecutive points beyond 4σ) or over `windows.deposited`; the supercooled-liquid and
+ *    liquid-cooled lines come from the cooling segment, 5 K away from its Tg. Then
+ *    - `tonset`: the VD line meets the line through the points with 0.2 ≤ x ≤ 0.8, where
+ *      x = (h − ĥ_VD)/(ĥ_SCL − ĥ_VD) (the thickness analogue of the extrapolated onset);
+ *    - `tfictive`: the VD line meets the SCL line;
+ *    - `density_gain`: 100·(ĥ_LC/ĥ_VD − 1) at the reference temperature (default the film's
+ *      substrate temperature), since ρ ∝ 1/h at fixed area and mass.
+ *    Uncertainties of intersections by the delta method (METHODS.md §0.3).
+ *
+ * Policy: any missing piece gives a diagnostic and no result for that figure; the other figures
+ * are still computed. "No transition detected" is reported, not thrown.
+ */
+import { at, type Diagnostic, type Message } from '../diagnostics/diagnostic.js';
+import { messages } from '../diagnostics/messages.js';
+import type { ParsedBlock } from '../notebook/parseBlock.js';
+import { t95 } from '../numeric/distributions.js';
+import { fitHinge } from '../numeric/hingeFit.js';
+import { fitLine, intersect, predict, predictVariance, type LineFit } from '../numeric/lineFit.js';
+import { result, type ResultValue } from '../results/result.js';
+import type { Span } from '../text/positions.js';
+import type { Analysis, AnalysisContext } from './context.js';
+import { statedTg } from './materialAnalysis.js';
+import { segmentScan, type Segment } from './segments.js';
+
+/** Distance from Tg of the glass and liquid lines used for extrapolation, K. */
+const LINE_GAP = 5;
+
+interface Curve {
+  readonly T: Float64Array;
+  readonly h: Float64Array;
+}
+
+function slice(c: Curve, s: Segment): Curve {
+  return { T: c.T.subarray(s.start, s.end), h: c.h.subarray(s.start, s.end) };
+}
+
+function window(block: ParsedBlock, name: string): [number, number] | null {
+  const a = block.quantities.get(`/windows/${name}/0`);
+  const b = block.quantities.get(`/windows/${name}/1`);
+  if (!a || !b) return null;
+  return a.value <= b.value ? [a.value, b.value] : [b.value, a.value];
+}
+
+function fitWhere(c: Curve, keep: (T: number) => boolean): LineFit | null {
+  const x: number[] = [];
+  const y: number[] = [];
+  for (let i = 0; i < c.T.length; i++) {
+    if (keep(c.T[i])) {
+      x.push(c.T[i]);
+      y.push(c.h[i]);
+    }
+  }
+  return fitLine(x, y);
+}
+
+export interface RampLines {
+  readonly vd?: LineFit;
+  readonly scl?: LineFit;
+  readonly lc?: LineFit;
+  readonly transformation?: LineFit;
+  readonly segments: readonly Segment[];
+}
+
+export function analyzeRamp(block: ParsedBlock, ctx: AnalysisContext): Analysis {
+  return rampDetails(block, ctx).analysis;
+}
+
+/** The analysis and the fitted lines (the charts draw them). */
+export function rampDetails(block: ParsedBlock, ctx: AnalysisContext): { analysis: Analysis; lines: RampLines } {
+  const diagnostics: Diagnostic[] = [];
+  const results: Record<string, ResultValue> = {};
+  const empty = { analysis: { results, diagnostics }, lines: { segments: [] } };
+  const table = block.table;
+  if (!table || table.rowCount === 0) return empty;
+  const Tcol = table.byRole.get('temperature');
+  const hcol = table.byRole.get('thickness') ?? table.byRole.get('volume');
+  const note = (m: Message, span: Span): void => void diagnostics.push(at(m, span));
+  if (!Tcol || !hcol) {
+    // A header problem was already reported by the table reader.
+    if (table.problems.length === 0) note(messages.rampNoThickness(), block.spanOf('/data'));
+    return empty;
+  }
+  const curve: Curve = { T: Tcol.values, h: hcol.values };
+  const time = table.byRole.get('time')?.values ?? null;
+  const nominal = block.quantities.get('/rate')?.value ?? null;
+  const segments = segmentScan(curve.T, time, nominal);
+  const lines: { -readonly [K in keyof RampLines]: RampLines[K] } = { segments };
+
+  for (const s of segments) {
+    if (s.backStep !== undefined && !time) note(messages.rampMixedDirection(s.direction), block.rowSpan(s.backStep));
+  }
+  if (nominal) {
+    const off = segments.find((s) => s.direction !== 'isothermal' && s.measuredRate !== undefined && Math.abs(Math.abs(s.measuredRate) - nominal) > 0.1 * nominal);
+    if (off?.measuredRate !== undefined) note(messages.rampRateMismatch(Math.abs(off.measuredRate), nominal), block.spanOf('/rate'));
+  }
+
+  // Tg from the longest clean cooling segment.
+  const coolings = segments.filter((s) => s.direction === 'cooling' && (time || s.backStep === undefined));
+  const cooling = coolings.sort((a, b) => b.end - b.start - (a.end - a.start))[0];
+  let tg: number | null = null;
+  if (!cooling) {
+    if (table.rowCount >= 10) note(messages.rampNoCooling(), block.header.kindSpan);
+  } else {
+    const c = slice(curve, cooling);
+    const glassW = window(block, 'glass');
+    const liquidW = window(block, 'liquid');
+    if (glassW && liquidW) {
+      const g = fitWhere(c, (T) => T >= glassW[0] && T <= glassW[1]);
+      const l = fitWhere(c, (T) => T >= liquidW[0] && T <= liquidW[1]);
+      const x = g && l ? intersect(g, l, t95) : null;
+      if (!g || !l || !x) {
+        note(messages.rampTooFewPoints('cooling segment'), block.spanOf('/windows'));
+      } else {
+        tg = x.x;
+        const h = predict(g, x.x);
+        const k = t95(Math.max(1, g.n + l.n - 4));
+        results.tg = result(x.x, 'K', `two windows (glass ${glassW[0]}–${glassW[1]} K, liquid ${liquidW[0]}–${liquidW[1]} K), intersection; cooling segment`, x.se, [x.x - k * x.se, x.x + k * x.se]);
+        results.alpha_glass = result(g.slope / h, '1/K', 'slope of the glass window line / h at Tg', Math.sqrt(g.varSlope) / h);
+        results.alpha_liquid = result(l.slope / h, '1/K', 'slope of the liquid window line / h at Tg', Math.sqrt(l.varSlope) / h);
+        if (!x.slopesDiffer) note(messages.rampSlopesEqual('Tg'), block.spanOf('/windows'));
+      }
+    } else {
+      const fit = fitHinge(c.T, c.h);
+      const where = block.rowSpan(cooling.start);
+      if (!fit.ok) {
+        note(messages.rampTooFewPoints('cooling segment'), where);
+      } else if (fit.fit.pTransition > 0.05) {
+        note(messages.rampNoTransition(fit.fit.pTransition), where);
+      } else if (fit.fit.atEdge) {
+        note(messages.rampTgAtEdge(), where);
+      } else {
+        const f = fit.fit;
+        tg = f.breakpoint;
+        const u = (f.interval[1] - f.interval[0]) / (2 * t95(Math.max(1, f.n - 4)));
+        const rateText = nominal ? ` at ${nominal} K/min` : '';
+        results.tg = result(f.breakpoint, 'K', `hinge fit (continuous two-line, optimised breakpoint), cooling segment${rateText}; 95 % profile-likelihood interval`, u, f.interval);
+        results.alpha_glass = result(f.slopeLow / f.hAtBreak, '1/K', 'glass slope of the hinge fit / h at Tg', f.seSlopeLow / f.hAtBreak);
+        results.alpha_liquid = result(f.slopeHigh / f.hAtBreak, '1/K', 'liquid slope of the hinge fit / h at Tg', f.seSlopeHigh / f.hAtBreak);
+        const ratio = f.slopeHigh / f.slopeLow;
+        if (!(f.slopeHigh > f.slopeLow) || (f.slopeLow > 0 && ratio < 1.3)) note(messages.rampWeakTransition(ratio), where);
+        if (f.durbinWatson < 1) note(messages.rampCurvature(f.durbinWatson), where);
+      }
+    }
+    if (tg !== null) {
+      const material = materialOf(block, ctx);
+      const ref = material ? statedTg(material) : null;
+      if (ref && Math.abs(tg - ref.value) > 10) note(messages.rampTgFar(tg, ref.value, nominal ?? NaN), block.rowSpan(cooling.start));
+      const gap = chooseGap(c, tg);
+      lines.lc = fitWhere(c, glassW ? (T) => T >= glassW[0] && T <= glassW[1] : (T) => T <= tg! - gap) ?? undefined;
+      lines.scl = fitWhere(c, liquidW ? (T) => T >= liquidW[0] && T <= liquidW[1] : (T) => T >= tg! + gap) ?? undefined;
+    }
+  }
+
+  // First heating of the as-deposited film.
+  const first = segments[0];
+  if (first && first.direction === 'heating' && first.end - first.start >= 10) {
+    firstHeating(block, ctx, slice(curve, first), first, lines, results, note);
+  }
+  return { analysis: { results, diagnostics }, lines };
+}
+
+function materialOf(block: ParsedBlock, ctx: AnalysisContext): ParsedBlock | undefined {
+  const filmId = block.metadata.data.film;
+  const film = typeof filmId === 'string' ? ctx.lookup(filmId, 'deposition') : undefined;
+  const m = film?.metadata.data.material;
+  return typeof m === 'string' ? ctx.lookup(m, 'material') : undefined;
+}
+
+/** 5 K from Tg, shrunk when a side would keep fewer than 5 points. */
+function chooseGap(c: Curve, tg: number): number {
+  for (const gap of [LINE_GAP, 3, 2, 1]) {
+    let below = 0;
+    let above = 0;
+    for (const T of c.T) {
+      if (T <= tg - gap) below++;
+      if (T >= tg + gap) above++;
+    }
+    if (below >= 5 && above >= 5) return gap;
+  }
+  return 0;
+}
+
+function firstHeating(
+  block: ParsedBlock,
+  ctx: AnalysisContext,
+  c: Curve,
+  seg: Segment,
+  lines: { vd?: LineFit; scl?: LineFit; lc?: LineFit; transformation?: LineFit },
+  results: Record<string, ResultValue>,
+  note: (m: Message, span: Span) => void,
+): void {
+  const m = c.T.length;
+  const depositedW = window(block, 'deposited');
+  let vdEnd = m; // exclusive index of the VD window in the heating segment
+  let deviation = -1;
+  let vd: LineFit | null;
+  if (depositedW) {
+    vd = fitWhere(c, (T) => T >= depositedW[0] && T <= depositedW[1]);
+    vdEnd = 0;
+    for (let i = 0; i < m; i++) if (c.T[i] <= depositedW[1]) vdEnd = i + 1;
+    deviation = vdEnd < m ? vdEnd : -1;
+  } else {
+    let k = Math.min(Math.max(8, Math.floor(0.15 * m)), Math.floor(m / 2));
+    vd = fitLine(c.T, c.h, 0, k);
+    let run = 0;
+    for (let i = k; i < m && vd; i++) {
+      if (i >= 1.5 * k && run === 0) {
+        k = i;
+        vd = fitLine(c.T, c.h, 0, k) ?? vd;
+      }
+      const sigma = Math.max(Math.sqrt(vd.sigma2), 1e-9 * Math.abs(vd.c));
+      const r = c.h[i] - predict(vd, c.T[i]);
+      run = Math.abs(r) > 4 * sigma ? run + 1 : 0;
+      if (run === 3) {
+        deviation = i - 2;
+        break;
+      }
+    }
+    if (deviation >= 0) {
+      vdEnd = deviation;
+      while (vdEnd > 3 && c.T[vdEnd - 1] > c.T[deviation] - 2) vdEnd--;
+      vd = fitLine(c.T, c.h, 0, vdEnd) ?? vd;
+    }
+  }
+  const rowOf = (i: number): Span => block.rowSpan(seg.start + i);
+  if (!vd) return;
+  lines.vd = vd;
+  if (vd.n < 8) note(messages.rampFewLinePoints('as-deposited', vd.n), rowOf(0));
+  if (deviation < 0) {
+    note(messages.rampNoOnset(), rowOf(0));
+    return;
+  }
+
+  // Supercooled-liquid line: from the cooling segment, else from the top of this heating.
+  let scl = lines.scl ?? null;
+  if (!scl) {
+    const top = c.T[m - 1];
+    const start = c.T[deviation];
+    scl = fitWhere({ T: c.T.subarray(deviation), h: c.h.subarray(deviation) }, (T) => T >= top - 0.25 * (top - start));
+    if (scl) lines.scl = scl;
+  }
+  if (!scl) return;
+  if (scl.n < 8) note(messages.rampFewLinePoints('supercooled-liquid', scl.n), rowOf(m - 1));
+  if (!(scl.slope > vd.slope)) {
+    note(messages.rampSclNotSteeper(), rowOf(deviation));
+    return;
+  }
+
+  // Transformation line through 0.2 ≤ x ≤ 0.8, from the first crossing of 0.2.
+  const xs: number[] = [];
+  const ys: number[] = [];
+  for (const [lo, hi] of [
+    [0.2, 0.8],
+    [0.1, 0.9],
+  ] as const) {
+    xs.length = 0;
+    ys.length = 0;
+    let started = false;
+    for (let i = vdEnd; i < m; i++) {
+      const a = predict(vd, c.T[i]);
+      const b = predict(scl, c.T[i]);
+      const x = (c.h[i] - a) / (b - a);
+      if (!started && x >= lo) started = true;
+      if (!started) continue;
+      if (x > hi) break;
+      if (x >= lo) {
+        xs.push(c.T[i]);
+        ys.push(c.h[i]);
+      }
+    }
+    if (xs.length >= 3) break;
+  }
+  const transformation = fitLine(xs, ys);
+  if (transformation) {
+    lines.transformation = transformation;
+    const on = intersect(vd, transformation, t95);
+    if (on) {
+      results.tonset = result(on.x, 'K', 'extrapolated onset: as-deposited line ∩ line through 0.2 ≤ x ≤ 0.8, first heating', on.se);
+      if (!on.slopesDiffer) note(messages.rampSlopesEqual('the onset'), rowOf(deviation));
+    }
+  }
+  const tf = intersect(vd, scl, t95);
+  if (tf) {
+    results.tfictive = result(tf.x, 'K', 'as-deposited line ∩ supercooled-liquid line', tf.se);
+    if (tf.x < vd.xmin - 20) note(messages.rampTfExtrapolated(tf.x, vd.xmin), rowOf(0));
+  }
+
+  // Density gained over the liquid-cooled glass.
+  const lc = lines.lc;
+  if (!lc) {
+    note(messages.rampNoLcReference(), block.header.kindSpan);
+    return;
+  }
+  const explicit = block.quantities.get('/reference_temperature');
+  const filmId = block.metadata.data.film;
+  const film = typeof filmId === 'string' ? ctx.lookup(filmId, 'deposition') : undefined;
+  const tsub = film?.quantities.get('/substrate_temperature');
+  const tref = explicit?.value ?? tsub?.value;
+  if (tref === undefined) return;
+  const hLc = predict(lc, tref);
+  const hVd = predict(vd, tref);
+  const ratio = hLc / hVd;
+  const u = 100 * Math.abs(ratio) * Math.sqrt(predictVariance(lc, tref) / (hLc * hLc) + predictVariance(vd, tref) / (hVd * hVd));
+  results.density_gain = result(100 * (ratio - 1), '%', `100·(h_LC/h_VD − 1) from the fitted lines at ${Number(tref.toPrecision(6))} K`, u);
+  results.reference_temperature = result(tref, 'K', explicit ? 'reference_temperature as written' : `substrate temperature of ${String(filmId)}`);
+}
