@@ -69,7 +69,7 @@ write('D-03-cycle.tsv', 't (s)\tT (K)\th (nm)', cycle({ seed: 3, tsub: 296, tg: 
   const n = rng(21);
   const A = -13.8, B = 640, T0 = 248;
   const rows = [];
-  for (let T = 296; T <= 352; T += 4) rows.push([T, Math.pow(10, A + B / (T - T0) + 0.03 * n())]);
+  for (let T = 290; T <= 350; T += 4) rows.push([T, Math.pow(10, A + B / (T - T0) + 0.03 * n())]);
   const text = ['# loss-peak times, tau = 1/(2 pi f_max)', 'T/K  tau/s', ...rows.map((r) => `${r[0].toFixed(1)}  ${r[1].toExponential(4)}`)].join('\n') + '\n';
   writeFileSync(`${dir}/quillite-dielectric.txt`, text);
 }

@@ -51,7 +51,7 @@ describe('Notebook', () => {
     nb.setFile('d.md', 'A new first line moves every block.\n' + blocks.replace('D-7', 'D-7b'));
     nb.analyze();
     assert.equal(nb.stats.parsed, 1, 'one block re-parsed');
-    assert.equal(nb.stats.analysed, 1, 'one block re-analysed');
+    assert.equal(nb.stats.analysed, 2, 'the edited block and the material that gathers its films');
     nb.stats.analysed = 0;
     nb.setFile('m.md', MATERIAL.replace('tg: 300 K', 'tg: 301 K'));
     nb.analyze();

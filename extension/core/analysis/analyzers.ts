@@ -4,6 +4,7 @@ import { NO_ANALYSIS, type Analyzer } from './context.js';
 import { analyzeDeposition } from './depositionAnalysis.js';
 import { analyzeMaterial } from './materialAnalysis.js';
 import { analyzeRamp } from './rampAnalysis.js';
+import { analyzeRelaxation } from './relaxationAnalysis.js';
 
 const none: Analyzer = () => NO_ANALYSIS;
 
@@ -13,6 +14,6 @@ export const ANALYZERS: Readonly<Record<BlockKind, Analyzer>> = {
   ramp: analyzeRamp,
   isotherm: none,
   dsc: none,
-  relaxation: none,
+  relaxation: analyzeRelaxation,
   results: none,
 };

@@ -10,6 +10,7 @@ import { messages } from '../diagnostics/messages.js';
 import type { ParsedBlock } from '../notebook/parseBlock.js';
 import { result, type ResultValue } from '../results/result.js';
 import type { Analysis, AnalysisContext } from './context.js';
+import { standardTg } from './standardTg.js';
 import { vftDerivedUncertainty, vftFragility, vftTg, type VftParameters } from './vft.js';
 
 /** The VFT parameters written on a material block, or null when incomplete. */
@@ -28,7 +29,21 @@ export function statedTg(block: ParsedBlock): { value: number; uncertainty?: num
   return q ? { value: q.value, uncertainty: q.uncertainty } : null;
 }
 
-export function analyzeMaterial(block: ParsedBlock, _ctx: AnalysisContext): Analysis {
+/** The VFT parameters of a material: stated on the block, else fitted to its relaxation data. */
+export function materialVft(block: ParsedBlock, ctx: AnalysisContext): { p: VftParameters; source: string } | null {
+  const stated = statedVft(block);
+  if (stated) return { p: stated.p, source: 'stated' };
+  if (block.id === null) return null;
+  for (const relax of ctx.referrers('relaxation', 'material', block.id)) {
+    const r = ctx.resultsOf(relax);
+    if (r.vft_log10_tau0 && r.vft_B && r.vft_T0) {
+      return { p: { log10Tau0: r.vft_log10_tau0.value, B: r.vft_B.value, T0: r.vft_T0.value }, source: `relaxation block ${relax.id ?? ''}` };
+    }
+  }
+  return null;
+}
+
+export function analyzeMaterial(block: ParsedBlock, ctx: AnalysisContext): Analysis {
   const diagnostics: Diagnostic[] = [];
   const results: Record<string, ResultValue> = {};
   const vft = statedVft(block);
@@ -54,6 +69,22 @@ export function analyzeMaterial(block: ParsedBlock, _ctx: AnalysisContext): Anal
         diagnostics.push(at(messages.vftTgDisagrees(tg, stated.value), block.spanOf('/tg')));
       }
     }
+  } else if (block.id !== null) {
+    // No stated VFT: take Tg and m from the material's relaxation data, if any.
+    for (const relax of ctx.referrers('relaxation', 'material', block.id)) {
+      const r = ctx.resultsOf(relax);
+      if (r.tg_vft && r.fragility) {
+        results.tg_vft = { ...r.tg_vft, method: `${r.tg_vft.method} (relaxation block ${relax.id ?? ''})` };
+        results.fragility = { ...r.fragility, method: `${r.fragility.method} (relaxation block ${relax.id ?? ''})` };
+        break;
+      }
+    }
+  }
+  const std = standardTg(block, ctx, results.fragility?.value, diagnostics);
+  if (std) {
+    results.standard_tg = std;
+    const stated = statedTg(block);
+    if (stated && Math.abs(std.value - stated.value) > 5) diagnostics.push(at(messages.standardTgDisagrees(std.value, stated.value), block.spanOf('/tg')));
   }
   return { results, diagnostics };
 }

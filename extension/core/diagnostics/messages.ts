@@ -150,6 +150,31 @@ export const messages = {
   rampNoOnset: () => msg('ramp.no-onset', 'warning', 'The first heating shows no departure from the as-deposited line: no transformation onset found in this scan.'),
   rampSlopesEqual: (what: string) => msg('ramp.parallel-lines', 'warning', `The two lines for ${what} are not clearly different in slope (t-test, p > 0.05); the intersection is unreliable.`),
 
+  // Relaxation
+  relaxNoColumns: () => msg('table.missing-column', 'error', 'The relaxation table needs a temperature column (T) and a relaxation-time column (tau).'),
+  relaxNonPositive: (tau: number) => msg('relaxation.non-positive', 'error', `τ = ${fmt(tau)} s is not positive; this row is left out of the fit.`),
+  relaxTooFew: (n: number) => msg('relaxation.too-few-points', 'error', `A VFT fit needs at least 4 points with τ > 0; there are ${n}.`),
+  relaxShortRange: (decades: number) =>
+    msg('relaxation.short-range', 'warning', `The data span only ${fmt(decades, 2)} decades of τ (fewer than 3): T0 and the fragility are poorly determined.`),
+  relaxT0NearData: (t0: number, tmin: number) =>
+    msg('relaxation.t0-near-data', 'warning', `T0 = ${fmt(t0)} K is within 5 K of the lowest measured temperature (${fmt(tmin)} K), or not above 0 K: the fit is not constrained.`),
+  relaxTgExtrapolated: (maxTau: number) =>
+    msg('relaxation.tg-extrapolated', 'warning', `The longest τ is ${fmt(maxTau, 3)} s (below 1 s): Tg (τ = 100 s) is extrapolated by more than two decades.`),
+  relaxNoFit: () => msg('relaxation.no-fit', 'error', 'The VFT fit did not converge on these data.'),
+
+  // Standard Tg of a material
+  fewRates: (n: number) => msg('material.few-rates', 'warning', `Tg at 10 K/min comes from only ${n} cooling rate${n === 1 ? '' : 's'} (fewer than 3); the rate dependence is poorly known.`),
+  standardTgExtrapolated: (lo: number, hi: number) =>
+    msg('material.tg-extrapolated', 'warning', `10 K/min lies outside the measured cooling rates (${fmt(lo, 3)}–${fmt(hi, 3)} K/min): the standard Tg is extrapolated.`),
+  rateSlopeOdd: (slope: number) =>
+    msg('material.tg-rate-slope', 'warning', `Tg changes by ${fmt(slope, 3)} K per decade of cooling rate, outside the usual 1–10 K/decade (or negative). Check the rates and the Tg values.`),
+  fragilityConversion: (q: number) =>
+    msg('material.fragility-conversion', 'warning', `Only one cooling rate (${fmt(q, 3)} K/min): the standard Tg is a fragility-based conversion, Tg + (Tg/m)·log10(10 K/min / q).`),
+  noFragilityForConversion: () =>
+    msg('material.no-fragility', 'info', 'The films were cooled at one rate other than 10 K/min and the material has no fragility (no VFT parameters or relaxation data), so no standard Tg is computed.'),
+  standardTgDisagrees: (computed: number, stated: number) =>
+    msg('material.standard-tg-disagrees', 'warning', `The cooling ramps give Tg(10 K/min) = ${fmt(computed)} K, ${fmt(Math.abs(computed - stated), 2)} K from the stated tg ${fmt(stated)} K.`),
+
   // Results blocks
   resultsStale: (id: string) =>
     msg('results.stale', 'warning', `These frozen results no longer match the inputs of "${id}"; the data or metadata changed since they were written.`),

@@ -1,0 +1,89 @@
+/**
+ * Relaxation results: the decadic VFT fit log10 τ = A + B/(T − T0) by variable projection
+ * (vftFit.ts, METHODS.md §5) with its covariance; `tg_vft` (τ = 100 s) and `fragility` (m at Tg)
+ * with delta-method uncertainties from the full covariance (T0 is strongly correlated with A and
+ * B). Flags from METHODS.md §5: fewer than 4 points, τ ≤ 0, fewer than 3 decades, T0 within 5 K
+ * of T_min or ≤ 0, longest τ below 1 s.
+ *
+ * Policy: rows with τ ≤ 0 are reported and left out; the rest are fitted.
+ */
+import { at, type Diagnostic } from '../diagnostics/diagnostic.js';
+import { messages } from '../diagnostics/messages.js';
+import type { ParsedBlock } from '../notebook/parseBlock.js';
+import { fitVft, type VftFit } from '../numeric/vftFit.js';
+import { result, type ResultValue } from '../results/result.js';
+import type { Analysis, AnalysisContext } from './context.js';
+import { vftDerivedUncertainty, vftFragility, vftTg } from './vft.js';
+
+export interface RelaxationFit {
+  readonly fit: VftFit;
+  readonly tmin: number;
+  readonly tmax: number;
+}
+
+/** The VFT fit of a relaxation block, or null (no diagnostics: see analyzeRelaxation). */
+export function relaxationFit(block: ParsedBlock): RelaxationFit | null {
+  const T = block.table?.byRole.get('temperature')?.values;
+  const tau = block.table?.byRole.get('tau')?.values;
+  if (!T || !tau) return null;
+  const xs: number[] = [];
+  const ys: number[] = [];
+  for (let i = 0; i < T.length; i++) {
+    if (tau[i] > 0) {
+      xs.push(T[i]);
+      ys.push(Math.log10(tau[i]));
+    }
+  }
+  const fit = fitVft(xs, ys);
+  return fit ? { fit, tmin: Math.min(...xs), tmax: Math.max(...xs) } : null;
+}
+
+export function analyzeRelaxation(block: ParsedBlock, _ctx: AnalysisContext): Analysis {
+  const diagnostics: Diagnostic[] = [];
+  const results: Record<string, ResultValue> = {};
+  const table = block.table;
+  if (!table || table.rowCount === 0) return { results, diagnostics };
+  const T = table.byRole.get('temperature')?.values;
+  const tau = table.byRole.get('tau')?.values;
+  if (!T || !tau) {
+    if (table.problems.length === 0) diagnostics.push(at(messages.relaxNoColumns(), block.spanOf('/data')));
+    return { results, diagnostics };
+  }
+  let good = 0;
+  let maxTau = 0;
+  let minTau = Infinity;
+  for (let i = 0; i < tau.length; i++) {
+    if (tau[i] > 0) {
+      good++;
+      maxTau = Math.max(maxTau, tau[i]);
+      minTau = Math.min(minTau, tau[i]);
+    } else diagnostics.push(at(messages.relaxNonPositive(tau[i]), block.rowSpan(i)));
+  }
+  if (good < 4) {
+    diagnostics.push(at(messages.relaxTooFew(good), block.header.kindSpan));
+    return { results, diagnostics };
+  }
+  const r = relaxationFit(block);
+  if (!r) {
+    diagnostics.push(at(messages.relaxNoFit(), block.header.kindSpan));
+    return { results, diagnostics };
+  }
+  const { fit } = r;
+  const se = (k: number): number | undefined => (fit.covariance ? Math.sqrt(Math.max(0, fit.covariance[k][k])) : undefined);
+  const method = 'decadic VFT fit of log10 τ by variable projection, polished by Levenberg–Marquardt';
+  results.vft_log10_tau0 = result(fit.A, '1', method, se(0));
+  results.vft_B = result(fit.B, 'K', method, se(1));
+  results.vft_T0 = result(fit.T0, 'K', method, se(2));
+  const p = { log10Tau0: fit.A, B: fit.B, T0: fit.T0 };
+  const tg = vftTg(p);
+  if (Number.isFinite(tg)) {
+    const u = fit.covariance ? vftDerivedUncertainty(p, fit.covariance) : undefined;
+    results.tg_vft = result(tg, 'K', 'VFT fit: temperature where τ = 100 s', u?.tg);
+    results.fragility = result(vftFragility(p), '1', 'VFT fit: m = B·Tg/(Tg − T0)²', u?.m);
+  }
+  const decades = Math.log10(maxTau / minTau);
+  if (decades < 3) diagnostics.push(at(messages.relaxShortRange(decades), block.header.kindSpan));
+  if (fit.T0 > r.tmin - 5 || fit.T0 <= 0 || fit.t0AtBound) diagnostics.push(at(messages.relaxT0NearData(fit.T0, r.tmin), block.header.kindSpan));
+  if (maxTau < 1) diagnostics.push(at(messages.relaxTgExtrapolated(maxTau), block.header.kindSpan));
+  return { results, diagnostics };
+}
