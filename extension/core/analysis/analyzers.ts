@@ -3,6 +3,7 @@ import type { BlockKind } from '../scan/blockHeader.js';
 import { NO_ANALYSIS, type Analyzer } from './context.js';
 import { analyzeDeposition } from './depositionAnalysis.js';
 import { analyzeMaterial } from './materialAnalysis.js';
+import { analyzeIsotherm } from './isothermAnalysis.js';
 import { analyzeRamp } from './rampAnalysis.js';
 import { analyzeRelaxation } from './relaxationAnalysis.js';
 
@@ -12,7 +13,7 @@ export const ANALYZERS: Readonly<Record<BlockKind, Analyzer>> = {
   material: analyzeMaterial,
   deposition: analyzeDeposition,
   ramp: analyzeRamp,
-  isotherm: none,
+  isotherm: analyzeIsotherm,
   dsc: none,
   relaxation: analyzeRelaxation,
   results: none,

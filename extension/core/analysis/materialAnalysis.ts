@@ -30,14 +30,16 @@ export function statedTg(block: ParsedBlock): { value: number; uncertainty?: num
 }
 
 /** The VFT parameters of a material: stated on the block, else fitted to its relaxation data. */
-export function materialVft(block: ParsedBlock, ctx: AnalysisContext): { p: VftParameters; source: string } | null {
+export function materialVft(block: ParsedBlock, ctx: AnalysisContext): { p: VftParameters; source: string; range?: [number, number] } | null {
   const stated = statedVft(block);
   if (stated) return { p: stated.p, source: 'stated' };
   if (block.id === null) return null;
   for (const relax of ctx.referrers('relaxation', 'material', block.id)) {
     const r = ctx.resultsOf(relax);
     if (r.vft_log10_tau0 && r.vft_B && r.vft_T0) {
-      return { p: { log10Tau0: r.vft_log10_tau0.value, B: r.vft_B.value, T0: r.vft_T0.value }, source: `relaxation block ${relax.id ?? ''}` };
+      const T = relax.table?.byRole.get('temperature')?.values;
+      const range: [number, number] | undefined = T && T.length > 0 ? [Math.min(...T), Math.max(...T)] : undefined;
+      return { p: { log10Tau0: r.vft_log10_tau0.value, B: r.vft_B.value, T0: r.vft_T0.value }, source: `fit of relaxation block ${relax.id ?? ''}`, range };
     }
   }
   return null;

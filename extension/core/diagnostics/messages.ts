@@ -175,6 +175,20 @@ export const messages = {
   standardTgDisagrees: (computed: number, stated: number) =>
     msg('material.standard-tg-disagrees', 'warning', `The cooling ramps give Tg(10 K/min) = ${fmt(computed)} K, ${fmt(Math.abs(computed - stated), 2)} K from the stated tg ${fmt(stated)} K.`),
 
+  // Isotherms
+  isoNoColumns: () => msg('table.missing-column', 'error', 'The isotherm table needs a time column (t) and a thickness column (h).'),
+  isoNoFit: () => msg('isotherm.no-fit', 'error', 'The plateau–transformation–plateau fit failed on these data (at least 8 points are needed).'),
+  isoDrift: (dev: number) => msg('isotherm.temperature-drift', 'error', `The temperature departs from the hold by ${fmt(dev, 2)} K (more than 0.3 K) after it was reached.`),
+  isoNoFinalPlateau: () =>
+    msg('isotherm.no-final-plateau', 'warning', 'No final plateau: the transformation had not finished when the data end, so the transformation time is a lower bound.'),
+  isoTransformedDuringRamp: () =>
+    msg('isotherm.transformed-during-ramp', 'warning', 'The transformation began before the hold temperature was reached: part of it happened during the ramp.'),
+  isoNoTransformation: () => msg('isotherm.no-transformation', 'warning', 'The thickness does not change between the plateaus: no transformation found.'),
+  isoNoVft: (material: string) =>
+    msg('isotherm.no-vft', 'info', `No τα: material "${material}" has neither VFT parameters nor relaxation data, so no stability ratio is computed.`),
+  isoTauExtrapolated: (T: number, lo: number, hi: number) =>
+    msg('isotherm.tau-extrapolated', 'warning', `τα at ${fmt(T)} K comes from extrapolating the VFT fit outside its data (${fmt(lo)}–${fmt(hi)} K).`),
+
   // Results blocks
   resultsStale: (id: string) =>
     msg('results.stale', 'warning', `These frozen results no longer match the inputs of "${id}"; the data or metadata changed since they were written.`),

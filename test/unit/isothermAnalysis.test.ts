@@ -1,0 +1,65 @@
+import assert from 'node:assert/strict';
+import { InMemoryHost, Notebook, toJsonReport } from '../../extension/core/index.js';
+import { gaussian } from '../support/random.js';
+import { DEPOSITION_BLOCK, MATERIAL_BLOCK, tableBlock } from '../support/synthetic.js';
+
+// CHECKS.md §2.1 worked case [computed, exact]: (A, B, T0) = (−14, 700 K, 200 K), Tg = 243.75 K;
+// at Tg + 10 K τ = 0.10550081484 s, and a 1.0e4 s transformation gives t/τα = 94786.0.
+const VFT = 'vft:\n  log10_tau0: -14\n  B: 700 K\n  T0: 200 K\n';
+
+function isotherm(rows: number[][], meta = ''): ReturnType<typeof toJsonReport>['files'][number]['blocks'][number] {
+  const nb = new Notebook(new InMemoryHost());
+  nb.setFile('m.md', MATERIAL_BLOCK(243.75, VFT));
+  nb.setFile('d.md', DEPOSITION_BLOCK('D-1', 210) + tableBlock('isotherm', 'I-1', `film: D-1\ntemperature: 253.75 K\n${meta}`, 't/s, T/K, h/nm', rows, 9));
+  return toJsonReport(nb.analyze(['d.md'])).files[0].blocks[1];
+}
+
+/** 300 nm as deposited, transforming linearly from 7000 s to 10000 s, then a plateau. */
+function hold(noise: () => number = () => 0, sigma = 0, end = 14000): number[][] {
+  const rows: number[][] = [];
+  for (let t = 0; t <= end; t += 20) {
+    const x = Math.min(1, Math.max(0, (t - 7000) / 3000));
+    rows.push([t, 253.75, 300 + 6 * x + sigma * noise()]);
+  }
+  return rows;
+}
+
+describe('isotherm analysis', () => {
+  it('finds the transformation and the stability ratio of the worked case', () => {
+    const b = isotherm(hold());
+    assert.ok(Math.abs(b.results.onset_time.value - 7000) < 1e-3, `t1 ${b.results.onset_time.value}`);
+    assert.ok(Math.abs(b.results.transformation_time.value - 10000) < 1e-3);
+    // METHODS.md §4 worked example: a 300 nm film transforming over 3000 s gives v = 0.1 nm/s.
+    assert.ok(Math.abs(b.results.front_velocity.value - 0.1) < 1e-7);
+    assert.ok(Math.abs(b.results.tau_alpha.value - 0.10550081484) < 1e-9);
+    assert.ok(Math.abs(b.results.stability_ratio.value - 94786.0) < 0.5, `S ${b.results.stability_ratio.value}`);
+    assert.deepEqual(b.diagnostics, []);
+  });
+
+  it('halves the front velocity with two fronts', () => {
+    const b = isotherm(hold(), 'fronts: 2\n');
+    assert.ok(Math.abs(b.results.front_velocity.value - 0.05) < 1e-7);
+  });
+
+  it('gives uncertainties that cover the truth with noise', () => {
+    const b = isotherm(hold(gaussian(4), 0.05));
+    for (const [name, truth] of [['onset_time', 7000], ['transformation_time', 10000]] as const) {
+      const r = b.results[name];
+      assert.ok(r.uncertainty! > 0 && Math.abs(r.value - truth) < 4 * r.uncertainty!, `${name} ${r.value} ± ${r.uncertainty}`);
+    }
+  });
+
+  it('warns when there is no final plateau', () => {
+    const b = isotherm(hold(() => 0, 0, 9900));
+    assert.ok(b.diagnostics.some((d) => d.code === 'isotherm.no-final-plateau'), JSON.stringify(b.diagnostics));
+    assert.match(b.results.transformation_time.method, /lower bound/);
+  });
+
+  it('flags a drifting hold temperature on its row', () => {
+    const rows = hold();
+    rows[100][1] = 254.5;
+    const b = isotherm(rows);
+    const d = b.diagnostics.find((x) => x.code === 'isotherm.temperature-drift');
+    assert.ok(d);
+  });
+});
