@@ -82,7 +82,7 @@ write('D-03-cycle.tsv', 't (s)\tT (K)\th (nm)', cycle({ seed: 3, tsub: 296, tg: 
     const cpg = 1.21 + 0.0031 * (T - 300);
     const cpl = 1.63 + 0.0018 * (T - 300);
     const s = 1 / (1 + Math.exp(-(T - 336) / 1.3));
-    const peak = 0.9 * Math.exp(-0.5 * ((T - 337.5) / 1.6) ** 2);
+    const peak = 3.7 * Math.exp(-0.5 * ((T - 337.5) / 1.6) ** 2);
     rows.push([T, cpg + (cpl - cpg) * s + peak + 0.003 * n()]);
   }
   write('D-01-dsc.csv', 'T/K, Cp/(J g^-1 K^-1)', rows, ', ', [1, 4]);

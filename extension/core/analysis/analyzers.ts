@@ -3,6 +3,7 @@ import type { BlockKind } from '../scan/blockHeader.js';
 import { NO_ANALYSIS, type Analyzer } from './context.js';
 import { analyzeDeposition } from './depositionAnalysis.js';
 import { analyzeMaterial } from './materialAnalysis.js';
+import { analyzeDsc } from './dscAnalysis.js';
 import { analyzeIsotherm } from './isothermAnalysis.js';
 import { analyzeRamp } from './rampAnalysis.js';
 import { analyzeRelaxation } from './relaxationAnalysis.js';
@@ -14,7 +15,7 @@ export const ANALYZERS: Readonly<Record<BlockKind, Analyzer>> = {
   deposition: analyzeDeposition,
   ramp: analyzeRamp,
   isotherm: analyzeIsotherm,
-  dsc: none,
+  dsc: analyzeDsc,
   relaxation: analyzeRelaxation,
   results: none,
 };

@@ -29,6 +29,7 @@ import { fitLine, intersect, predict, predictVariance, type LineFit } from '../n
 import { result, type ResultValue } from '../results/result.js';
 import type { Span } from '../text/positions.js';
 import type { Analysis, AnalysisContext } from './context.js';
+import { addAging } from './dscAnalysis.js';
 import { statedTg } from './materialAnalysis.js';
 import { segmentScan, type Segment } from './segments.js';
 
@@ -293,6 +294,9 @@ function firstHeating(
   if (tf) {
     results.tfictive = result(tf.x, 'K', 'as-deposited line ∩ supercooled-liquid line', tf.se);
     if (tf.x < vd.xmin - 20) note(messages.rampTfExtrapolated(tf.x, vd.xmin), rowOf(0));
+    const agingNotes: Diagnostic[] = [];
+    addAging(block, ctx, tf.x, results, agingNotes);
+    for (const d of agingNotes) note(d, d.span);
   }
 
   // Density gained over the liquid-cooled glass.

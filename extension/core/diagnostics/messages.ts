@@ -189,6 +189,25 @@ export const messages = {
   isoTauExtrapolated: (T: number, lo: number, hi: number) =>
     msg('isotherm.tau-extrapolated', 'warning', `τα at ${fmt(T)} K comes from extrapolating the VFT fit outside its data (${fmt(lo)}–${fmt(hi)} K).`),
 
+  // Calorimetry
+  dscNoColumns: (what: string) => msg('table.missing-column', 'error', `The dsc table needs a temperature column (T) and a ${what} column.`),
+  dscNoMass: () => msg('dsc.no-mass', 'error', 'Heat flow needs the sample mass and the rate to give a heat capacity; write "mass:".'),
+  dscWindowOverlap: (which: string) =>
+    msg('dsc.window-overlap', 'error', `The ${which} baseline window reaches into the transition (the steepest rise lies inside it). Set windows.${which} away from the step.`),
+  dscTooFew: (which: string) => msg('dsc.too-few-points', 'error', `The ${which} baseline window holds fewer than 3 points.`),
+  dscNoStep: () => msg('dsc.no-step', 'warning', 'The liquid baseline is not above the glass baseline: no glass-transition step found.'),
+  dscTfBelowWindow: (tf: number, t1: number) =>
+    msg('dsc.tf-below-window', 'error', `The fictive temperature (${fmt(tf)} K) falls below the start of the glass window (${fmt(t1)} K): extend windows.glass to lower temperatures.`),
+  dscReferenceMismatch: (what: string) =>
+    msg('dsc.reference-mismatch', 'error', `This scan and its reference differ in ${what}; the enthalpy gap needs the same heating rate and sample mass.`),
+  dscReferenceNoData: (id: string) => msg('dsc.reference-no-data', 'warning', `The reference scan "${id}" has no usable heat capacity data.`),
+  dscCpBelowReference: () =>
+    msg('dsc.cp-below-reference', 'warning', 'In the glass region the heat capacity lies below that of the reference scan (reported for stable glasses); each scan uses its own glass baseline.'),
+
+  // Equivalent aging
+  agingExtrapolated: () =>
+    msg('aging.extrapolated', 'info', 'The equivalent aging time is an extrapolation far below Tg; estimates from different methods disagree, so it is given as a bracket.'),
+
   // Results blocks
   resultsStale: (id: string) =>
     msg('results.stale', 'warning', `These frozen results no longer match the inputs of "${id}"; the data or metadata changed since they were written.`),

@@ -1,0 +1,34 @@
+/**
+ * Equivalent aging time of a glass with fictive temperature Tf (METHODS.md §5, "Equivalent aging
+ * time"): how long the equilibrium liquid would take to relax at Tf. Estimates disagree by orders
+ * of magnitude (Berthier & Ediger, J. Chem. Phys. 152, 044501 (2020)), so the result is a bracket
+ * of two named methods, always flagged as an extrapolation:
+ * 1. VFT extrapolation: τα(Tf) = 10^(A + B/(Tf − T0)) s;
+ * 2. constant slope at Tg: log10 τ = 2 + m·(Tg/Tf − 1).
+ * The value is the geometric mean; `interval` holds the two estimates.
+ *
+ * Policy: without a VFT law (and Tg, m) no result.
+ */
+import type { VftParameters } from './vft.js';
+import { vftFragility, vftLog10Tau, vftTg } from './vft.js';
+import { result, type ResultValue } from '../results/result.js';
+
+export function equivalentAgingTime(tf: number, vft: VftParameters, tgRef?: number): ResultValue | undefined {
+  const tg = tgRef ?? vftTg(vft);
+  const m = vftFragility(vft);
+  const logVft = vftLog10Tau(vft, tf);
+  if (!Number.isFinite(tg) || !Number.isFinite(m) || !(tf > 0)) return undefined;
+  const logSlope = 2 + m * (tg / tf - 1);
+  const logs = [logVft, logSlope].filter(Number.isFinite);
+  if (logs.length < 2) return undefined;
+  const lo = Math.pow(10, Math.min(...logs));
+  const hi = Math.pow(10, Math.max(...logs));
+  const value = Math.pow(10, (logs[0] + logs[1]) / 2);
+  return result(
+    value,
+    's',
+    `bracket of VFT extrapolation τα(Tf) = ${lo === Math.pow(10, logVft) ? lo.toExponential(2) : hi.toExponential(2)} s and constant slope 2 + m(Tg/Tf − 1) = ${Math.pow(10, logSlope).toExponential(2)} s (geometric mean); an extrapolation`,
+    undefined,
+    [lo, hi],
+  );
+}
