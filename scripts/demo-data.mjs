@@ -87,4 +87,20 @@ write('D-03-cycle.tsv', 't (s)\tT (K)\th (nm)', cycle({ seed: 3, tsub: 296, tg: 
   }
   write('D-01-dsc.csv', 'T/K, Cp/(J g^-1 K^-1)', rows, ', ', [1, 4]);
 }
+
+
+// The second heating of the same pan after cooling at 10 K/min: the liquid-cooled reference,
+// with its step at Tg and a small overshoot.
+{
+  const n = rng(32);
+  const rows = [];
+  for (let T = 290; T <= 360; T += 0.5) {
+    const cpg = 1.21 + 0.0031 * (T - 300);
+    const cpl = 1.63 + 0.0018 * (T - 300);
+    const s = 1 / (1 + Math.exp(-(T - 319) / 1.6));
+    const peak = 0.12 * Math.exp(-0.5 * ((T - 321) / 1.5) ** 2);
+    rows.push([T, cpg + (cpl - cpg) * s + peak + 0.003 * n()]);
+  }
+  write('D-01-dsc-second.csv', 'T/K, Cp/(J g^-1 K^-1)', rows, ', ', [1, 4]);
+}
 console.log('demo data written to', dir);

@@ -223,6 +223,8 @@ export function addAging(block: ParsedBlock, ctx: AnalysisContext, tf: number, r
   const vft = material ? materialVft(material, ctx) : null;
   if (!vft) return;
   const tg = material?.quantities.get('/tg')?.value;
+  // Only a glass well below Tg has an aging time worth estimating.
+  if (tg !== undefined && tf > tg - 5) return;
   const aging = equivalentAgingTime(tf, vft.p, tg);
   if (aging) {
     results.equivalent_aging_time = aging;

@@ -208,6 +208,10 @@ export const messages = {
   agingExtrapolated: () =>
     msg('aging.extrapolated', 'info', 'The equivalent aging time is an extrapolation far below Tg; estimates from different methods disagree, so it is given as a bracket.'),
 
+  // Plausibility against published ranges (warnings, never fit targets)
+  implausible: (name: string, value: string, range: string, source: string) =>
+    msg('result.implausible', 'warning', `${name} = ${value} is outside the usual ${range} (${source}). Check the data and the windows.`),
+
   // Results blocks
   resultsStale: (id: string) =>
     msg('results.stale', 'warning', `These frozen results no longer match the inputs of "${id}"; the data or metadata changed since they were written.`),

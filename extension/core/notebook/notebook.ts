@@ -17,6 +17,7 @@
  * diagnostic on its block and the rest of the notebook is still analysed.
  */
 import { ANALYZERS } from '../analysis/analyzers.js';
+import { plausibilityWarnings } from '../analysis/plausibility.js';
 import type { Analysis, AnalysisContext } from '../analysis/context.js';
 import { applyOverrides, at, type Diagnostic, type SeverityOverrides } from '../diagnostics/diagnostic.js';
 import { messages } from '../diagnostics/messages.js';
@@ -260,7 +261,8 @@ class AnalysisRun {
     let analysis: Analysis;
     try {
       this.stats.analysed++;
-      analysis = ANALYZERS[block.kind](block, ctx);
+      const raw = ANALYZERS[block.kind](block, ctx);
+      analysis = { results: raw.results, diagnostics: [...raw.diagnostics, ...plausibilityWarnings(raw.results, block.header.idSpan ?? block.header.kindSpan)] };
     } catch (e) {
       analysis = { results: {}, diagnostics: [at(messages.internalError(e instanceof Error ? e.message : String(e)), block.header.kindSpan)] };
     }
