@@ -5,6 +5,7 @@
  * Notebook: 40 files × 25 deposition blocks + 1 material file (1000 data blocks).
  */
 import { InMemoryHost, Notebook } from '../../extension/core/index.js';
+import { fitHinge } from '../../extension/core/numeric/hingeFit.js';
 
 const MATERIAL = '```material M-1\nname: bench glass\ntg: 300 K\ntg_source: bench\n```\n';
 const block = (f: number, i: number): string =>
@@ -50,3 +51,21 @@ const prose = time(() => {
 console.log(`cold analysis of 1000 blocks:            ${cold.toFixed(1)} ms`);
 console.log(`edit one value, re-check its file:       ${edit.toFixed(2)} ms  (${(cold / edit).toFixed(0)}× faster than cold)`);
 console.log(`type prose above 25 blocks, re-check:    ${prose.toFixed(2)} ms  (${(cold / prose).toFixed(0)}× faster than cold)`);
+
+// A 100 000-row cooling scan through the hinge fit, against a 1 000-row one (O(n log n)).
+function scan(n: number): [number[], number[]] {
+  const T: number[] = [];
+  const h: number[] = [];
+  for (let i = 0; i < n; i++) {
+    const t = 280 + (70 * i) / (n - 1);
+    T.push(t);
+    h.push((t < 315 ? 100 + 0.02 * (t - 315) : 100 + 0.07 * (t - 315)) + 0.02 * Math.sin(i * 12.9898));
+  }
+  return [T, h];
+}
+const [T1, h1] = scan(1000);
+const [T2, h2] = scan(100000);
+const small = time(() => fitHinge(T1, h1), 20);
+const large = time(() => fitHinge(T2, h2), 3);
+console.log(`hinge fit, 1 000 rows:                   ${small.toFixed(2)} ms`);
+console.log(`hinge fit, 100 000 rows:                 ${large.toFixed(1)} ms  (${(large / small).toFixed(0)}× the 1 000-row time for 100× the rows)`);
