@@ -10,6 +10,7 @@ await build({
   target: 'node20',
   sourcemap: true,
   logLevel: 'warning',
+  external: ['@resvg/resvg-js'],
   banner: {
     js: "#!/usr/bin/env node\nimport { createRequire as __vitrineRequire } from 'node:module';\nconst require = __vitrineRequire(import.meta.url);",
   },

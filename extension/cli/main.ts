@@ -12,6 +12,8 @@ import * as fs from 'node:fs';
 import * as path from 'node:path';
 import { Notebook, formatDiagnosticLine, summarise, toJsonReport, type JsonReport, type NotebookReport } from '../core/index.js';
 import { FileHost, markdownFiles } from './fileHost.js';
+import { progressBar, type Progress } from './progress.js';
+import { writeReport } from './report.js';
 import { summaryTable } from './summaryTable.js';
 
 const USAGE = `usage: vitrine <command> PATH... [options]
@@ -19,10 +21,14 @@ const USAGE = `usage: vitrine <command> PATH... [options]
 commands:
   check PATH...            check notebooks; print file:line:col: severity: message [code]
   analyze PATH... --json   print every result and diagnostic as JSON
+  report PATH... -o FILE   write a self-contained HTML report with charts
 
 options:
   --summary                with check: print a table of the figures of merit per film
   --quiet                  with check: print errors only
+  -o, --output FILE        with report: the HTML file to write
+  --csv FILE               with report: also write the summary per film as CSV
+  --png DIR                with report: also write every chart as PNG into DIR
   -h, --help               show this help
   --version                print the version
 
@@ -33,6 +39,8 @@ export interface CliIo {
   readonly out: (text: string) => void;
   readonly err: (text: string) => void;
   readonly cwd: string;
+  /** Standard error is a terminal (a progress bar may be drawn). */
+  readonly errIsTty?: boolean;
 }
 
 class UsageError extends Error {}
@@ -42,21 +50,24 @@ interface RootRun {
   readonly report: NotebookReport;
 }
 
-function loadRoot(root: string, only: string[] | null): RootRun {
+function loadRoot(root: string, only: string[] | null, progress: Progress | null): RootRun {
   const host = new FileHost(root);
   const notebook = new Notebook(host);
-  for (const rel of markdownFiles(root)) {
+  const files = markdownFiles(root);
+  for (const [i, rel] of files.entries()) {
+    progress?.update(i, files.length, rel);
     try {
       notebook.setFile(rel, fs.readFileSync(path.join(root, ...rel.split('/')), 'utf8'));
     } catch (e) {
       notebook.setUnreadable(rel, e instanceof Error ? e.message : String(e));
     }
   }
+  progress?.done();
   return { root, report: notebook.analyze(only ?? undefined) };
 }
 
 /** Groups the PATH arguments into notebook roots. */
-function runs(paths: readonly string[], cwd: string): RootRun[] {
+function runs(paths: readonly string[], cwd: string, progress: Progress | null = null): RootRun[] {
   const byRoot = new Map<string, string[] | null>();
   for (const p of paths) {
     const abs = path.resolve(cwd, p);
@@ -76,7 +87,7 @@ function runs(paths: readonly string[], cwd: string): RootRun[] {
       byRoot.set(root, [...(list ?? []), rel]);
     }
   }
-  return [...byRoot.entries()].map(([root, only]) => loadRoot(root, only));
+  return [...byRoot.entries()].map(([root, only]) => loadRoot(root, only, progress));
 }
 
 function displayPath(root: string, rel: string, cwd: string): string {
@@ -84,9 +95,9 @@ function displayPath(root: string, rel: string, cwd: string): string {
   return shown.split(path.sep).join('/');
 }
 
-export function runCli(argv: readonly string[], io: CliIo): number {
+export async function runCli(argv: readonly string[], io: CliIo): Promise<number> {
   try {
-    return dispatch(argv, io);
+    return await dispatch(argv, io);
   } catch (e) {
     if (e instanceof UsageError) {
       io.err(`vitrine: ${e.message}\n\n${USAGE}\n`);
@@ -97,7 +108,17 @@ export function runCli(argv: readonly string[], io: CliIo): number {
   }
 }
 
-function dispatch(argv: readonly string[], io: CliIo): number {
+/** Takes `--name VALUE` (or `-o VALUE`) out of the arguments. */
+function takeOption(args: string[], names: readonly string[]): string | undefined {
+  const i = args.findIndex((a) => names.includes(a));
+  if (i < 0) return undefined;
+  const value = args[i + 1];
+  if (value === undefined || value.startsWith('-')) throw new UsageError(`${args[i]} needs a value`);
+  args.splice(i, 2);
+  return value;
+}
+
+async function dispatch(argv: readonly string[], io: CliIo): Promise<number> {
   const args = [...argv];
   if (args.length === 0 || args.includes('-h') || args.includes('--help')) {
     io.out(USAGE + '\n');
@@ -108,10 +129,12 @@ function dispatch(argv: readonly string[], io: CliIo): number {
     return 0;
   }
   const command = args.shift();
+  if (command === 'report') return report(args, io);
   const flags = new Set(args.filter((a) => a.startsWith('-')));
   const paths = args.filter((a) => !a.startsWith('-'));
   const known = command === 'check' ? ['--summary', '--quiet'] : command === 'analyze' ? ['--json'] : [];
   if (command !== 'check' && command !== 'analyze') throw new UsageError(`unknown command "${command ?? ''}"`);
+
   for (const f of flags) if (!known.includes(f)) throw new UsageError(`unknown option "${f}" for ${command}`);
   if (paths.length === 0) throw new UsageError(`${command} needs at least one PATH`);
   if (command === 'analyze' && !flags.has('--json')) throw new UsageError('analyze writes JSON: add --json');
@@ -144,5 +167,21 @@ function dispatch(argv: readonly string[], io: CliIo): number {
       io.out('\n' + (rows.length > 0 ? summaryTable(rows) : 'No films (deposition blocks) yet.') + '\n');
     }
   }
+  return errors > 0 ? 1 : 0;
+}
+
+async function report(args: string[], io: CliIo): Promise<number> {
+  const output = takeOption(args, ['-o', '--output']);
+  const csv = takeOption(args, ['--csv']);
+  const png = takeOption(args, ['--png']);
+  const unknown = args.find((a) => a.startsWith('-'));
+  if (unknown) throw new UsageError(`unknown option "${unknown}" for report`);
+  if (!output) throw new UsageError('report needs -o FILE');
+  if (args.length === 0) throw new UsageError('report needs at least one PATH');
+  const progress = io.errIsTty ? progressBar(io.err) : null;
+  const all = runs(args, io.cwd, progress);
+  const written = await writeReport(all, { output: path.resolve(io.cwd, output), csv: csv ? path.resolve(io.cwd, csv) : undefined, png: png ? path.resolve(io.cwd, png) : undefined, title: args.length === 1 ? `Vitrine report: ${path.basename(path.resolve(io.cwd, args[0]))}` : 'Vitrine report' });
+  for (const line of written) io.out(line + '\n');
+  const errors = all.reduce((n, r) => n + r.report.files.reduce((k, f) => k + f.blocks.reduce((m, b) => m + b.diagnostics.filter((d) => d.severity === 'error').length, 0), 0), 0);
   return errors > 0 ? 1 : 0;
 }

@@ -4,16 +4,16 @@ import * as path from 'node:path';
 import { runCli } from '../../extension/cli/main.js';
 import { REPO } from '../support/loadNotebook.js';
 
-function run(args: string[]): { code: number; out: string; err: string } {
+async function run(args: string[]): Promise<{ code: number; out: string; err: string }> {
   let out = '';
   let err = '';
-  const code = runCli(args, { out: (t) => (out += t), err: (t) => (err += t), cwd: REPO });
+  const code = await runCli(args, { out: (t) => (out += t), err: (t) => (err += t), cwd: REPO });
   return { code, out, err };
 }
 
 describe('vitrine CLI', () => {
-  it('check on the demo: warnings only, exit 0, and a summary table', () => {
-    const r = run(['check', 'fixtures/demo', '--summary']);
+  it('check on the demo: warnings only, exit 0, and a summary table', async () => {
+    const r = await run(['check', 'fixtures/demo', '--summary']);
     assert.equal(r.code, 0, r.out + r.err);
     assert.match(r.out, /^fixtures\/demo\/days\/2026-03-06\.md:\d+:\d+: warning: .* \[meta\.missing-recommended\]$/m);
     assert.match(r.out, /0 errors/);
@@ -21,21 +21,21 @@ describe('vitrine CLI', () => {
     assert.match(r.out, /^D-02\s+amberine-3\s+270\.0\s+0\.849/m);
   });
 
-  it('check on the bad corpus: file:line:col: severity: message [code], exit 1', () => {
-    const r = run(['check', 'fixtures/bad']);
+  it('check on the bad corpus: file:line:col: severity: message [code], exit 1', async () => {
+    const r = await run(['check', 'fixtures/bad']);
     assert.equal(r.code, 1);
     assert.match(r.out, /^fixtures\/bad\/units\.md:5:24: error: .* \[quantity\.wrong-dimension\]$/m);
     assert.doesNotMatch(r.out + r.err, /\n\s+at /, 'no stack trace');
   });
 
-  it('check on one file resolves references from its folder', () => {
-    const r = run(['check', 'fixtures/demo/materials.md']);
+  it('check on one file resolves references from its folder', async () => {
+    const r = await run(['check', 'fixtures/demo/materials.md']);
     assert.equal(r.code, 0, r.out);
     assert.match(r.out, /^1 file, 3 data blocks/m);
   });
 
-  it('analyze --json gives the results contract with 1-based lines', () => {
-    const r = run(['analyze', 'fixtures/demo', '--json']);
+  it('analyze --json gives the results contract with 1-based lines', async () => {
+    const r = await run(['analyze', 'fixtures/demo', '--json']);
     assert.equal(r.code, 0);
     const json = JSON.parse(r.out);
     const day = json.files.find((f: { path: string }) => f.path === 'days/2026-03-02.md');
@@ -48,9 +48,9 @@ describe('vitrine CLI', () => {
     assert.ok(json.files.every((f: { blocks: unknown[]; diagnostics: unknown[] }) => Array.isArray(f.blocks) && Array.isArray(f.diagnostics)));
   });
 
-  it('usage errors exit 2 with the usage text', () => {
+  it('usage errors exit 2 with the usage text', async () => {
     for (const args of [[], ['frobnicate', 'x'], ['check'], ['analyze', 'fixtures/demo'], ['check', 'no/such/folder'], ['check', 'fixtures/demo', '--bogus']]) {
-      const r = run(args);
+      const r = await run(args);
       assert.equal(r.code, 2, args.join(' '));
       assert.match(r.err + r.out, /usage: vitrine/);
     }

@@ -24,11 +24,5 @@ export function equivalentAgingTime(tf: number, vft: VftParameters, tgRef?: numb
   const lo = Math.pow(10, Math.min(...logs));
   const hi = Math.pow(10, Math.max(...logs));
   const value = Math.pow(10, (logs[0] + logs[1]) / 2);
-  return result(
-    value,
-    's',
-    `bracket of VFT extrapolation τα(Tf) = ${lo === Math.pow(10, logVft) ? lo.toExponential(2) : hi.toExponential(2)} s and constant slope 2 + m(Tg/Tf − 1) = ${Math.pow(10, logSlope).toExponential(2)} s (geometric mean); an extrapolation`,
-    undefined,
-    [lo, hi],
-  );
+  return result(value, 's', `bracket of VFT extrapolation τα(Tf) (${Math.pow(10, logVft).toExponential(1)} s) and constant slope at Tg, 2 + m(Tg/Tf − 1) (${Math.pow(10, logSlope).toExponential(1)} s); geometric mean; an extrapolation`, undefined, [lo, hi]);
 }

@@ -15,9 +15,30 @@ export interface AnalysisContext {
   referrers(kind: ParsedBlock['kind'], key: string, id: string): readonly ParsedBlock[];
 }
 
+/** What a chart of a block shows, in the units of the results: data, fitted lines, markers. */
+export interface FigureSeries {
+  readonly name: string;
+  /** 'data' points, a fitted 'line', a 'baseline' or 'tangent' construction, an 'area' (x, y, y2). */
+  readonly role: 'data' | 'line' | 'baseline' | 'tangent' | 'area';
+  readonly points: ReadonlyArray<readonly number[]>;
+}
+
+export interface FigureMarker {
+  readonly label: string;
+  readonly x: number;
+}
+
+export interface FigureData {
+  readonly xTitle: string;
+  readonly yTitle: string;
+  readonly series: readonly FigureSeries[];
+  readonly markers: readonly FigureMarker[];
+}
+
 export interface Analysis {
   readonly results: Results;
   readonly diagnostics: readonly Diagnostic[];
+  readonly figure?: FigureData;
 }
 
 export type Analyzer = (block: ParsedBlock, ctx: AnalysisContext) => Analysis;

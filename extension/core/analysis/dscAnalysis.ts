@@ -22,7 +22,8 @@ import { messages } from '../diagnostics/messages.js';
 import type { ParsedBlock } from '../notebook/parseBlock.js';
 import { fitLine, predict, type LineFit } from '../numeric/lineFit.js';
 import { result, type ResultValue } from '../results/result.js';
-import type { Analysis, AnalysisContext } from './context.js';
+import { linePoints, thinIndices } from '../charts/thin.js';
+import type { Analysis, AnalysisContext, FigureData } from './context.js';
 import { equivalentAgingTime } from './agingTime.js';
 import { materialVft } from './materialAnalysis.js';
 
@@ -211,7 +212,38 @@ export function analyzeDsc(block: ParsedBlock, ctx: AnalysisContext): Analysis {
 
   // Equivalent aging time from the fictive temperature.
   if (results.tfictive) addAging(block, ctx, results.tfictive.value, results, diagnostics);
-  return { results, diagnostics };
+  const tangent = { c: best.value, slope: best.slope, xc: tInfl };
+  return { results, diagnostics, figure: dscFigure(curve, glass, liquid, tangent, results, t1, t2) };
+}
+
+/** Cp with both baselines, the tangent at greatest slope, the excess area and the markers. */
+function dscFigure(c: DscCurve, glass: LineFit, liquid: LineFit, tangent: { c: number; slope: number; xc: number }, results: Record<string, ResultValue>, t1: number, t2: number): FigureData {
+  const idx = thinIndices(c.T.length);
+  const on = results.tonset?.value;
+  const tm = results.tg_midpoint?.value;
+  const tf = results.tfictive?.value;
+  const lo = c.T[0];
+  const hi = c.T[c.T.length - 1];
+  // The tangent from where it meets the glass baseline to where it meets the liquid one.
+  const meets = (f: LineFit): number => (tangent.c - tangent.slope * tangent.xc - (f.c - f.slope * f.xc)) / (f.slope - tangent.slope);
+  const t0 = meets(glass);
+  const te = meets(liquid);
+  return {
+    xTitle: 'T / K',
+    yTitle: 'Cp / (J g⁻¹ K⁻¹)',
+    series: [
+      { name: 'excess over the glass baseline', role: 'area', points: idx.filter((i) => c.T[i] >= t1 && c.T[i] <= t2).map((i) => [c.T[i], c.cp[i], predict(glass, c.T[i])]) },
+      { name: 'data', role: 'data', points: idx.map((i) => [c.T[i], c.cp[i]]) },
+      { name: 'glass baseline', role: 'baseline', points: linePoints(glass, lo, hi) },
+      { name: 'liquid baseline', role: 'baseline', points: linePoints(liquid, lo, hi) },
+      { name: 'tangent at greatest slope', role: 'tangent', points: linePoints(tangent, Math.min(t0, te) - 1, Math.max(t0, te) + 1) },
+    ],
+    markers: [
+      ...(on !== undefined ? [{ label: `onset ${on.toFixed(1)} K`, x: on }] : []),
+      ...(tm !== undefined ? [{ label: `midpoint ${tm.toFixed(1)} K`, x: tm }] : []),
+      ...(tf !== undefined ? [{ label: `Tf ${tf.toFixed(1)} K`, x: tf }] : []),
+    ],
+  };
 }
 
 /** Adds `equivalent_aging_time` for a fictive temperature, using the film's material. */

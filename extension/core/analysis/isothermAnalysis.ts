@@ -17,7 +17,8 @@ import { messages } from '../diagnostics/messages.js';
 import type { ParsedBlock } from '../notebook/parseBlock.js';
 import { fitThreeSegments, type ThreeSegmentFit } from '../numeric/threeSegmentFit.js';
 import { result, type ResultValue } from '../results/result.js';
-import type { Analysis, AnalysisContext } from './context.js';
+import { thinIndices } from '../charts/thin.js';
+import type { Analysis, AnalysisContext, FigureData } from './context.js';
 import { materialVft } from './materialAnalysis.js';
 import { vftLog10Tau } from './vft.js';
 
@@ -75,6 +76,7 @@ export function analyzeIsotherm(block: ParsedBlock, ctx: AnalysisContext): Analy
     diagnostics.push(at(messages.isoNoTransformation(), block.header.kindSpan));
     return { results, diagnostics };
   }
+  const figure = isothermFigure(t, h, fit, hVd, hL, t0);
   const cov = fit.covariance;
   const se = (k: number): number | undefined => (cov ? Math.sqrt(Math.max(0, cov[k][k])) : undefined);
   // A final plateau needs points after t₂ and a final slope well below the transformation's.
@@ -115,5 +117,25 @@ export function analyzeIsotherm(block: ParsedBlock, ctx: AnalysisContext): Analy
       }
     }
   }
-  return { results, diagnostics };
+  return { results, diagnostics, figure };
+}
+
+/** The transformed fraction x(t) = (h − h_VD)/(h_L − h_VD) with the fitted three segments. */
+function isothermFigure(t: Float64Array, h: Float64Array, fit: ThreeSegmentFit, hVd: number, hL: number, t0: number): FigureData {
+  const x = (v: number): number => (v - hVd) / (hL - hVd);
+  const model = (ti: number): number => fit.a + fit.b1 * ti + fit.b2 * Math.max(ti - fit.t1, 0) + fit.b3 * Math.max(ti - fit.t2, 0);
+  const first = t[0];
+  const last = t[t.length - 1];
+  return {
+    xTitle: 't / s (from the start of the hold)',
+    yTitle: 'transformed fraction x',
+    series: [
+      { name: 'data', role: 'data', points: thinIndices(t.length).map((i) => [t[i] - t0, x(h[i])]) },
+      { name: 'three-segment fit', role: 'line', points: [first, fit.t1, fit.t2, last].map((ti) => [ti - t0, x(model(ti))]) },
+    ],
+    markers: [
+      { label: `onset ${(fit.t1 - t0).toFixed(0)} s`, x: fit.t1 - t0 },
+      { label: `end ${(fit.t2 - t0).toFixed(0)} s`, x: fit.t2 - t0 },
+    ],
+  };
 }

@@ -28,7 +28,8 @@ import { fitHinge } from '../numeric/hingeFit.js';
 import { fitLine, intersect, predict, predictVariance, type LineFit } from '../numeric/lineFit.js';
 import { result, type ResultValue } from '../results/result.js';
 import type { Span } from '../text/positions.js';
-import type { Analysis, AnalysisContext } from './context.js';
+import { linePoints, thinIndices } from '../charts/thin.js';
+import type { Analysis, AnalysisContext, FigureData, FigureSeries } from './context.js';
 import { addAging } from './dscAnalysis.js';
 import { statedTg } from './materialAnalysis.js';
 import { segmentScan, type Segment } from './segments.js';
@@ -167,7 +168,38 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext): { analysi
   if (first && first.direction === 'heating' && first.end - first.start >= 10) {
     firstHeating(block, ctx, slice(curve, first), first, lines, results, note);
   }
-  return { analysis: { results, diagnostics }, lines };
+  const quantity = hcol.role === 'volume' ? `V / (${hcol.unit})` : 'h / nm';
+  return { analysis: { results, diagnostics, figure: rampFigure(curve, lines, results, quantity) }, lines };
+}
+
+/** The ramp chart: the scan by segment, the fitted lines, and Tg, Tonset, Tf marked. */
+function rampFigure(curve: Curve, lines: RampLines, results: Record<string, ResultValue>, yTitle: string): FigureData {
+  const series: FigureSeries[] = [];
+  for (const dir of ['heating', 'cooling', 'isothermal'] as const) {
+    const idx: number[] = [];
+    for (const s of lines.segments) if (s.direction === dir) for (let i = s.start; i < s.end; i++) idx.push(i);
+    if (idx.length === 0) continue;
+    series.push({ name: dir, role: 'data', points: thinIndices(idx.length).map((k) => [curve.T[idx[k]], curve.h[idx[k]]]) });
+  }
+  let tmin = Infinity;
+  let tmax = -Infinity;
+  for (const T of curve.T) {
+    tmin = Math.min(tmin, T);
+    tmax = Math.max(tmax, T);
+  }
+  const tg = results.tg?.value;
+  const tf = results.tfictive?.value;
+  const on = results.tonset?.value;
+  if (lines.lc) series.push({ name: 'liquid-cooled glass', role: 'line', points: linePoints(lines.lc, tmin, tg ?? lines.lc.xmax) });
+  if (lines.scl) series.push({ name: 'supercooled liquid', role: 'line', points: linePoints(lines.scl, Math.min(tf ?? lines.scl.xmin, tg ?? lines.scl.xmin, lines.scl.xmin), tmax) });
+  if (lines.vd) series.push({ name: 'as deposited', role: 'line', points: linePoints(lines.vd, Math.min(tmin, tf ?? tmin), Math.max(on ?? lines.vd.xmax, lines.vd.xmax)) });
+  if (lines.transformation) series.push({ name: 'transformation', role: 'tangent', points: linePoints(lines.transformation, (on ?? lines.transformation.xmin) - 1, lines.transformation.xmax + 1) });
+  const markers = [
+    ...(tg !== undefined ? [{ label: `Tg ${tg.toFixed(1)} K`, x: tg }] : []),
+    ...(on !== undefined ? [{ label: `Tonset ${on.toFixed(1)} K`, x: on }] : []),
+    ...(tf !== undefined ? [{ label: `Tf ${tf.toFixed(1)} K`, x: tf }] : []),
+  ];
+  return { xTitle: 'T / K', yTitle, series, markers };
 }
 
 function materialOf(block: ParsedBlock, ctx: AnalysisContext): ParsedBlock | undefined {

@@ -12,7 +12,7 @@ import { messages } from '../diagnostics/messages.js';
 import type { ParsedBlock } from '../notebook/parseBlock.js';
 import { fitVft, type VftFit } from '../numeric/vftFit.js';
 import { result, type ResultValue } from '../results/result.js';
-import type { Analysis, AnalysisContext } from './context.js';
+import type { Analysis, AnalysisContext, FigureData } from './context.js';
 import { vftDerivedUncertainty, vftFragility, vftTg } from './vft.js';
 
 export interface RelaxationFit {
@@ -85,5 +85,26 @@ export function analyzeRelaxation(block: ParsedBlock, _ctx: AnalysisContext): An
   if (decades < 3) diagnostics.push(at(messages.relaxShortRange(decades), block.header.kindSpan));
   if (fit.T0 > r.tmin - 5 || fit.T0 <= 0 || fit.t0AtBound) diagnostics.push(at(messages.relaxT0NearData(fit.T0, r.tmin), block.header.kindSpan));
   if (maxTau < 1) diagnostics.push(at(messages.relaxTgExtrapolated(maxTau), block.header.kindSpan));
-  return { results, diagnostics };
+  return { results, diagnostics, figure: relaxationFigure(T, tau, p, r, tg) };
+}
+
+/** log10 τ against 1000/T with the VFT curve, down to Tg when it lies below the data. */
+function relaxationFigure(T: Float64Array, tau: Float64Array, p: { log10Tau0: number; B: number; T0: number }, r: RelaxationFit, tg: number): FigureData {
+  const data: number[][] = [];
+  for (let i = 0; i < T.length; i++) if (tau[i] > 0) data.push([1000 / T[i], Math.log10(tau[i])]);
+  const lo = Number.isFinite(tg) ? Math.min(r.tmin, tg) : r.tmin;
+  const curve: number[][] = [];
+  for (let k = 0; k <= 60; k++) {
+    const t = lo + ((r.tmax - lo) * k) / 60;
+    if (t > p.T0) curve.push([1000 / t, p.log10Tau0 + p.B / (t - p.T0)]);
+  }
+  return {
+    xTitle: '1000 K / T',
+    yTitle: 'log10(τ / s)',
+    series: [
+      { name: 'data', role: 'data', points: data },
+      { name: 'VFT fit', role: 'line', points: curve },
+    ],
+    markers: Number.isFinite(tg) ? [{ label: `Tg(100 s) ${tg.toFixed(1)} K`, x: 1000 / tg }] : [],
+  };
 }

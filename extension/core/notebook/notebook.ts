@@ -18,7 +18,7 @@
  */
 import { ANALYZERS } from '../analysis/analyzers.js';
 import { plausibilityWarnings } from '../analysis/plausibility.js';
-import type { Analysis, AnalysisContext } from '../analysis/context.js';
+import type { Analysis, AnalysisContext, FigureData } from '../analysis/context.js';
 import { applyOverrides, at, type Diagnostic, type SeverityOverrides } from '../diagnostics/diagnostic.js';
 import { messages } from '../diagnostics/messages.js';
 import type { NotebookHost } from '../host.js';
@@ -37,6 +37,8 @@ export interface BlockReport {
   readonly results: Results;
   readonly diagnostics: readonly Diagnostic[];
   readonly parsed: ParsedBlock;
+  /** What the block's chart shows, when its analysis produced one. */
+  readonly figure?: FigureData;
 }
 
 export interface FileReport {
@@ -262,7 +264,7 @@ class AnalysisRun {
     try {
       this.stats.analysed++;
       const raw = ANALYZERS[block.kind](block, ctx);
-      analysis = { results: raw.results, diagnostics: [...raw.diagnostics, ...plausibilityWarnings(raw.results, block.header.idSpan ?? block.header.kindSpan)] };
+      analysis = { ...raw, diagnostics: [...raw.diagnostics, ...plausibilityWarnings(raw.results, block.header.idSpan ?? block.header.kindSpan)] };
     } catch (e) {
       analysis = { results: {}, diagnostics: [at(messages.internalError(e instanceof Error ? e.message : String(e)), block.header.kindSpan)] };
     }
@@ -333,6 +335,7 @@ class AnalysisRun {
       results: analysis.results,
       diagnostics: applyOverrides(absolute, severity),
       parsed: block,
+      ...(analysis.figure ? { figure: analysis.figure } : {}),
     };
   }
 }

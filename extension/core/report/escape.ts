@@ -1,0 +1,12 @@
+/** Escapes text for HTML content and attribute values. Everything from a notebook goes through it. */
+export function escapeHtml(text: string): string {
+  return text.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;').replace(/'/g, '&#39;');
+}
+
+/** A CSV field: quoted when needed, and never read as a formula by a spreadsheet. */
+export function csvField(value: string | number | undefined): string {
+  if (value === undefined || (typeof value === 'number' && !Number.isFinite(value))) return '';
+  let s = String(value);
+  if (typeof value === 'string' && /^[=+@\t\r]|^-[^0-9.]/.test(s)) s = `'${s}`;
+  return /[",\n\r]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+}

@@ -1,0 +1,153 @@
+/**
+ * The static HTML report: the notebook's files in order with their prose rendered by unified
+ * (remark → rehype → sanitize → stringify), each data block replaced by its chart, results table
+ * and diagnostics, then the summary table and the stability maps. One self-contained file: no
+ * scripts, no network. Everything taken from the notebook is escaped or sanitized; the only raw
+ * markup inserted is Vitrine's own (and the SVG its renderer made).
+ */
+import rehypeSanitize from 'rehype-sanitize';
+import rehypeStringify from 'rehype-stringify';
+import remarkParse from 'remark-parse';
+import remarkRehype from 'remark-rehype';
+import { unified } from 'unified';
+import type { Code, Root, RootContent } from 'mdast';
+import { formatNumber } from '../diagnostics/messages.js';
+import type { BlockReport, NotebookReport } from '../notebook/notebook.js';
+import type { FilmSummary } from '../results/summary.js';
+import type { ResultValue } from '../results/result.js';
+import { hashText } from '../text/hash.js';
+import { toOneBased, visibleSpan } from '../text/positions.js';
+import { escapeHtml } from './escape.js';
+
+export interface ReportInput {
+  readonly title: string;
+  readonly report: NotebookReport;
+  /** SVG of each block's chart. */
+  readonly charts: ReadonlyMap<BlockReport, string>;
+  readonly summary: readonly FilmSummary[];
+  readonly maps: ReadonlyArray<{ readonly name: string; readonly svg: string }>;
+}
+
+const STYLE = `
+:root { color-scheme: light dark; --fg: #1f2328; --muted: #59636e; --bg: #ffffff; --card: #f6f8fa; --line: #d0d7de; --err: #b42318; --warn: #9a6700; --info: #0969da; }
+@media (prefers-color-scheme: dark) { :root { --fg: #e6edf3; --muted: #9198a1; --bg: #0d1117; --card: #161b22; --line: #30363d; --err: #ff7b72; --warn: #d29922; --info: #58a6ff; } }
+body { font-family: "DejaVu Sans", Verdana, sans-serif; color: var(--fg); background: var(--bg); max-width: 1100px; margin: 2rem auto; padding: 0 1.5rem; line-height: 1.5; }
+h1 { font-size: 1.7rem; } h2.file { border-top: 2px solid var(--line); padding-top: 1rem; margin-top: 2.5rem; font-size: 1.05rem; color: var(--muted); font-family: "DejaVu Sans Mono", monospace; }
+section.block { background: var(--card); border: 1px solid var(--line); border-radius: 8px; padding: 0.8rem 1rem; margin: 1rem 0; }
+section.block h3 { margin: 0 0 0.5rem; font-size: 1rem; font-family: "DejaVu Sans Mono", monospace; }
+.chart { max-width: 700px; margin-bottom: 0.6rem; }
+.chart svg { width: 100%; height: auto; background: #fff; border-radius: 4px; }
+table { border-collapse: collapse; font-size: 0.85rem; width: 100%; }
+th, td { border-bottom: 1px solid var(--line); padding: 0.25rem 0.4rem; text-align: left; vertical-align: top; }
+td.num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
+td.method { color: var(--muted); font-size: 0.78rem; }
+ul.diagnostics { list-style: none; padding: 0; margin: 0.5rem 0 0; font-size: 0.82rem; }
+ul.diagnostics li { margin: 0.2rem 0; padding-left: 0.5rem; border-left: 3px solid var(--line); }
+li.error { border-color: var(--err) !important; } li.warning { border-color: var(--warn) !important; } li.info { border-color: var(--info) !important; }
+.sev { font-weight: bold; } li.error .sev { color: var(--err); } li.warning .sev { color: var(--warn); } li.info .sev { color: var(--info); }
+code.code { color: var(--muted); }
+.maps { display: grid; grid-template-columns: repeat(auto-fit, minmax(320px, 1fr)); gap: 1rem; }
+.maps svg { width: 100%; height: auto; background: #fff; border-radius: 4px; }
+pre { background: var(--card); padding: 0.6rem; overflow-x: auto; }
+footer { margin-top: 3rem; color: var(--muted); font-size: 0.8rem; }
+`;
+
+function numberText(v: number): string {
+  return escapeHtml(formatNumber(v, 6));
+}
+
+function resultsTable(results: Readonly<Record<string, ResultValue>>): string {
+  const entries = Object.entries(results);
+  if (entries.length === 0) return '';
+  const rows = entries
+    .map(([name, r]) => {
+      const u = r.uncertainty !== undefined ? `± ${escapeHtml(formatNumber(r.uncertainty, 2))}` : '';
+      const interval = r.interval ? `<br><span class="interval">[${numberText(r.interval[0])}, ${numberText(r.interval[1])}]</span>` : '';
+      return `<tr><td><code>${escapeHtml(name)}</code></td><td class="num">${numberText(r.value)}</td><td class="num">${u}</td><td>${escapeHtml(r.unit === '1' ? '' : r.unit)}</td><td class="method">${escapeHtml(r.method)}${interval}</td></tr>`;
+    })
+    .join('');
+  return `<table class="results"><thead><tr><th>result</th><th>value</th><th>u</th><th>unit</th><th>method</th></tr></thead><tbody>${rows}</tbody></table>`;
+}
+
+function blockHtml(block: BlockReport, file: NotebookReport['files'][number], svg: string | undefined): string {
+  const diags = block.diagnostics
+    .map((d) => {
+      const r = toOneBased(file.lines.rangeOf(visibleSpan(d.span, file.text.length)));
+      return `<li class="${escapeHtml(d.severity)}"><span class="sev">${escapeHtml(d.severity)}</span> line ${r.line}: ${escapeHtml(d.message)} <code class="code">${escapeHtml(d.code)}</code></li>`;
+    })
+    .join('');
+  const line = file.lines.positionAt(block.span.start).line + 1;
+  const title = `<h3><span class="kind">${escapeHtml(block.kind)}</span> ${escapeHtml(block.id ?? '(no id)')} <small>line ${line}</small></h3>`;
+  const chart = svg ? `<div class="chart">${svg}</div>` : '';
+  const side = `<div>${resultsTable(block.results)}${diags ? `<ul class="diagnostics">${diags}</ul>` : ''}</div>`;
+  return `<section class="block${svg ? '' : ' nochart'}">${title}${chart}${side}</section>`;
+}
+
+function summaryHtml(rows: readonly FilmSummary[]): string {
+  if (rows.length === 0) return '<p>No films (deposition blocks) yet.</p>';
+  const v = (r: ResultValue | undefined, digits = 1): string => (r ? `${escapeHtml(r.value.toFixed(digits))}${r.uncertainty !== undefined ? ` ± ${escapeHtml(formatNumber(r.uncertainty, 2))}` : ''}` : '—');
+  const n = (x: number | undefined, digits: number): string => (x === undefined ? '—' : escapeHtml(x.toFixed(digits)));
+  const body = rows
+    .map(
+      (r) =>
+        `<tr><td>${escapeHtml(r.film)}</td><td>${escapeHtml(r.material ?? '—')}</td><td class="num">${n(r.tsub, 1)}</td><td class="num">${v(r.tsubOverTg, 3)}</td><td class="num">${n(r.rate, 3)}</td><td class="num">${v(r.tg)}</td><td class="num">${v(r.tonset)}</td><td class="num">${v(r.tfictive)}</td><td class="num">${v(r.densityGain, 2)}</td><td class="num">${r.stabilityRatio ? escapeHtml(r.stabilityRatio.value.toExponential(2)) : '—'}</td></tr>`,
+    )
+    .join('');
+  return `<table class="summary"><thead><tr><th>film</th><th>material</th><th>Tsub / K</th><th>Tsub/Tg</th><th>rate / (nm/s)</th><th>Tg / K</th><th>Tonset / K</th><th>Tf / K</th><th>Δρ/ρ / %</th><th>S = t/τα</th></tr></thead><tbody>${body}</tbody></table>`;
+}
+
+/** Renders one markdown file, with its data blocks replaced by their sections. */
+function fileHtml(file: NotebookReport['files'][number], charts: ReadonlyMap<BlockReport, string>): string {
+  const nonce = hashText(file.text + file.path);
+  const byStart = new Map(file.blocks.map((b) => [b.span.start, b]));
+  const inserts = new Map<string, string>();
+  const processor = unified().use(remarkParse);
+  const tree = processor.parse(file.text) as Root;
+  const replace = (nodes: RootContent[]): void => {
+    for (let i = 0; i < nodes.length; i++) {
+      const node = nodes[i];
+      if (node.type === 'code') {
+        const start = (node as Code).position?.start.offset;
+        const block = start !== undefined ? byStart.get(start) : undefined;
+        if (block) {
+          const token = `vitrineblock${nonce}n${inserts.size}`;
+          inserts.set(token, blockHtml(block, file, charts.get(block)));
+          nodes[i] = { type: 'paragraph', children: [{ type: 'text', value: token }] };
+          continue;
+        }
+      }
+      if ('children' in node && Array.isArray(node.children)) replace(node.children as RootContent[]);
+    }
+  };
+  replace(tree.children);
+  const pipeline = unified().use(remarkRehype).use(rehypeSanitize).use(rehypeStringify);
+  let html = pipeline.stringify(pipeline.runSync(tree));
+  for (const [token, section] of inserts) html = html.split(`<p>${token}</p>`).join(section);
+  // A block inside a list or quote may not sit in its own paragraph; replace any remaining token.
+  for (const [token, section] of inserts) html = html.split(token).join(section);
+  return html;
+}
+
+export function buildHtmlReport(input: ReportInput): string {
+  const files = input.report.files
+    .map((f) => {
+      const fileDiags = f.diagnostics.map((d) => `<li class="${escapeHtml(d.severity)}"><span class="sev">${escapeHtml(d.severity)}</span> ${escapeHtml(d.message)} <code class="code">${escapeHtml(d.code)}</code></li>`).join('');
+      return `<h2 class="file">${escapeHtml(f.path)}</h2>${fileDiags ? `<ul class="diagnostics">${fileDiags}</ul>` : ''}<article>${fileHtml(f, input.charts)}</article>`;
+    })
+    .join('\n');
+  const maps = input.maps.map((m) => `<figure class="map" id="map-${escapeHtml(m.name)}">${m.svg}</figure>`).join('');
+  const blockCount = input.report.files.reduce((n, f) => n + f.blocks.length, 0);
+  const errors = input.report.files.reduce((n, f) => n + f.blocks.reduce((k, b) => k + b.diagnostics.filter((d) => d.severity === 'error').length, 0), 0);
+  return `<!doctype html>
+<html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">
+<meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; img-src data:">
+<title>${escapeHtml(input.title)}</title><style>${STYLE}</style></head>
+<body><h1>${escapeHtml(input.title)}</h1>
+<p>${input.report.files.length} files, ${blockCount} data blocks, ${errors} errors. Summary table and stability maps at the end.</p>
+${files}
+<h2 id="summary">Summary per film</h2>${summaryHtml(input.summary)}
+${maps ? `<h2 id="maps">Stability maps</h2><div class="maps">${maps}</div>` : ''}
+<footer>Written by Vitrine. Numbers are computed from the notebook's data with the methods named beside them; they do not replace the lab's own checks or safety rules.</footer>
+</body></html>
+`;
+}
