@@ -15,12 +15,13 @@ export function figureSpec(title: string, figure: FigureData, theme: Theme = 'li
     s.points.forEach((p, i) => rows.push({ series: s.name, role: s.role, x: p[0], y: p[1], y2: p[2] ?? null, order: i }));
   }
   const names = [...new Set(figure.series.map((s) => s.name))];
+  const dataPoints = figure.series.filter((s) => s.role === 'data').reduce((n, s) => n + s.points.length, 0);
   const color = { field: 'series', type: 'nominal', title: null, scale: { domain: names }, legend: { orient: 'bottom' } };
   const x = { field: 'x', type: 'quantitative', title: figure.xTitle, scale: { zero: false, nice: false } };
   const y = { field: 'y', type: 'quantitative', title: figure.yTitle, scale: { zero: false } };
   const layers: VegaLiteSpec[] = [
     { transform: [{ filter: "datum.role === 'area'" }], mark: { type: 'area', opacity: 0.18 }, encoding: { x, y, y2: { field: 'y2' }, color } },
-    { transform: [{ filter: "datum.role === 'data'" }], mark: { type: 'point', filled: true, size: 9, opacity: 0.75 }, encoding: { x, y, color } },
+    { transform: [{ filter: "datum.role === 'data'" }], mark: { type: 'point', filled: true, size: dataPoints < 200 ? 30 : 9, opacity: 0.8 }, encoding: { x, y, color } },
     { transform: [{ filter: "datum.role === 'line'" }], mark: { type: 'line', strokeWidth: 1.8 }, encoding: { x, y, color, detail: { field: 'series' }, order: { field: 'order' } } },
     { transform: [{ filter: "datum.role === 'baseline' || datum.role === 'tangent'" }], mark: { type: 'line', strokeWidth: 1.3, strokeDash: [5, 3] }, encoding: { x, y, color, detail: { field: 'series' }, order: { field: 'order' } } },
   ];
@@ -29,8 +30,13 @@ export function figureSpec(title: string, figure: FigureData, theme: Theme = 'li
     const ink = theme === 'dark' ? '#d4d4d4' : '#444444';
     layers.push({ data: { values: markers }, mark: { type: 'rule', strokeDash: [2, 2], opacity: 0.8, color: ink }, encoding: { x: { field: 'x', type: 'quantitative' } } });
     // Labels in lanes from the top, so that close markers do not overlap.
+    const halo = theme === 'dark' ? '#1e1e1e' : '#ffffff';
     markers.forEach((m, i) => {
-      layers.push({ data: { values: [m] }, mark: { type: 'text', align: 'left', dx: 3, baseline: 'top', fontSize: 10, y: 4 + 13 * i, color: ink }, encoding: { x: { field: 'x', type: 'quantitative' }, text: { field: 'label' } } });
+      const text = { type: 'text', align: 'left', dx: 3, baseline: 'top', fontSize: 10, y: 4 + 13 * i };
+      const encoding = { x: { field: 'x', type: 'quantitative' }, text: { field: 'label' } };
+      // A halo in the background colour keeps the label legible over data and lines.
+      layers.push({ data: { values: [m] }, mark: { ...text, stroke: halo, strokeWidth: 3, strokeOpacity: 0.9, color: halo }, encoding });
+      layers.push({ data: { values: [m] }, mark: { ...text, color: ink }, encoding });
     });
   }
   return {
