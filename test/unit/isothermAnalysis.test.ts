@@ -63,3 +63,24 @@ describe('isotherm analysis', () => {
     assert.ok(d);
   });
 });
+
+describe('isotherm flags', () => {
+  it('warns of a sigmoidal (non-linear) transformation', () => {
+    const g = gaussian(12);
+    const rows: number[][] = [];
+    for (let t = 0; t <= 14000; t += 20) {
+      const x = 1 - Math.exp(-Math.pow(Math.max(0, t - 3000) / 3000, 3));
+      rows.push([t, 253.75, 300 + 6 * x + 0.01 * g()]);
+    }
+    const b = isotherm(rows);
+    assert.ok(b.diagnostics.some((d) => d.code === 'isotherm.sigmoidal'), JSON.stringify(b.diagnostics.map((d) => d.code)));
+  });
+
+  it('warns of evaporation after the plateau and of an abrupt drop', () => {
+    const rows = hold().map(([t, T, h]) => [t, T, t > 10000 ? h - 0.0002 * (t - 10000) : h]);
+    const b = isotherm(rows);
+    assert.ok(b.diagnostics.some((d) => d.code === 'isotherm.evaporation'), JSON.stringify(b.diagnostics.map((d) => d.code)));
+    const dropped = hold().map(([t, T, h]) => [t, T, t >= 12000 ? h - 3 : h]);
+    assert.ok(isotherm(dropped).diagnostics.some((d) => d.code === 'isotherm.abrupt-drop'));
+  });
+});

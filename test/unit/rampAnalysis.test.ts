@@ -89,3 +89,22 @@ describe('ramp analysis', () => {
     assert.ok(d);
   });
 });
+
+describe('ramp flags', () => {
+  it('warns of an abrupt drop on its row', () => {
+    const rows = cycleRows();
+    for (let i = 400; i < rows.length; i++) rows[i][2] -= 2;
+    const b = analyse(tableBlock('ramp', 'R-1', 'film: D-1\nrate: 1 K/min\n', 't/s, T/K, h/nm', rows, 9));
+    assert.ok(b.diagnostics.some((d) => d.code === 'ramp.abrupt-drop'));
+  });
+
+  it('warns of evaporation during a hold above Tg', () => {
+    const rows: number[][] = [];
+    let t = 0;
+    for (let T = 330; T <= 345; T += 0.25, t += 15) rows.push([t, T, scl(T)]);
+    for (let k = 0; k < 40; k++, t += 15) rows.push([t, 345, scl(345) - 0.0002 * k * 15]);
+    for (let T = 345; T >= 290; T -= 0.25, t += 15) rows.push([t, T, (T >= 315 ? scl(T) : lc(T)) - 0.12]);
+    const b = analyse(tableBlock('ramp', 'R-1', 'film: D-1\nrate: 1 K/min\nreference_temperature: 300 K\n', 't/s, T/K, h/nm', rows, 9));
+    assert.ok(b.diagnostics.some((d) => d.code === 'ramp.evaporation'), JSON.stringify(b.diagnostics.map((d) => d.code)));
+  });
+});

@@ -39,6 +39,9 @@ export function analyzeDeposition(block: ParsedBlock, ctx: AnalysisContext): Ana
   const rate = block.quantities.get('/rate');
   const duration = block.quantities.get('/duration');
   const thickness = block.quantities.get('/thickness');
+  if (rate?.uncertainty !== undefined && rate.value > 0 && rate.uncertainty / rate.value > 0.2) {
+    diagnostics.push(at(messages.rateUnstable(rate.uncertainty / rate.value), block.spanOf('/rate')));
+  }
   if (rate && duration) {
     const expected = rate.value * duration.value;
     const rel = Math.hypot((rate.uncertainty ?? 0) / rate.value, (duration.uncertainty ?? 0) / duration.value);

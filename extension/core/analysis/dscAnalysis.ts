@@ -164,6 +164,21 @@ export function analyzeDsc(block: ParsedBlock, ctx: AnalysisContext): Analysis {
     }
   }
 
+  // Peaks in the liquid region (crystallisation exotherm, melting endotherm).
+  {
+    const sigma = Math.max(Math.sqrt(liquid.sigma2), 1e-9);
+    let low = 0;
+    let high = 0;
+    for (let i = 0; i < n; i++) {
+      if (T[i] < liquidW[0]) continue;
+      const r = cp[i] - at0(liquid, T[i]);
+      if (r < -8 * sigma) low++;
+      if (r > 8 * sigma) high++;
+    }
+    if (low >= 3) diagnostics.push(at(messages.dscPeaks('exothermic'), block.spanOf('/windows')));
+    else if (high >= 3) diagnostics.push(at(messages.dscPeaks('endothermic'), block.spanOf('/windows')));
+  }
+
   // Moynihan area matching.
   const t1 = glassW[0];
   const t2 = liquidW[1];

@@ -86,6 +86,7 @@ export function analyzeIsotherm(block: ParsedBlock, ctx: AnalysisContext): Analy
   const bound = lowerBound ? ' (lower bound: no final plateau)' : '';
   if (lowerBound) diagnostics.push(at(messages.isoNoFinalPlateau(), block.rowSpan(table.rowCount - 1)));
   if (fit.t1 < t0) diagnostics.push(at(messages.isoTransformedDuringRamp(), block.rowSpan(t0Row)));
+  isothermChecks(block, t, h, fit, lowerBound, diagnostics);
   const method = 'plateau–transformation–plateau fit (continuous, three segments)';
   results.onset_time = result(fit.t1 - t0, 's', `${method}: t₁ − t₀`, se(4));
   const trans = fit.t2 - t0;
@@ -118,6 +119,43 @@ export function analyzeIsotherm(block: ParsedBlock, ctx: AnalysisContext): Analy
     }
   }
   return { results, diagnostics, figure };
+}
+
+/** Evaporation after the plateau, abrupt drops and a non-linear transformation (METHODS.md §4 flags). */
+function isothermChecks(block: ParsedBlock, t: Float64Array, h: Float64Array, fit: ThreeSegmentFit, lowerBound: boolean, diagnostics: Diagnostic[]): void {
+  const n = t.length;
+  const model = (ti: number): number => fit.a + fit.b1 * ti + fit.b2 * Math.max(ti - fit.t1, 0) + fit.b3 * Math.max(ti - fit.t2, 0);
+  const rampSlope = fit.b1 + fit.b2;
+  const finalSlope = rampSlope + fit.b3;
+  if (!lowerBound && Math.sign(finalSlope) === -Math.sign(rampSlope) && Math.abs(finalSlope) > 0.02 * Math.abs(rampSlope)) {
+    diagnostics.push(at(messages.isoEvaporation(), block.rowSpan(n - 1)));
+  }
+  // An abrupt drop: a fall far beyond the typical point-to-point step.
+  const steps = Array.from({ length: n - 1 }, (_, i) => Math.abs(h[i + 1] - h[i])).sort((a, b) => a - b);
+  const typical = steps[Math.floor(steps.length / 2)] ?? 0;
+  for (let i = 1; i < n; i++) {
+    const drop = h[i - 1] - h[i];
+    if (drop > 10 * Math.max(typical, 1e-9 * Math.abs(h[i])) && drop > 3 * Math.abs(h[Math.min(n - 1, i + 1)] - h[i])) {
+      diagnostics.push(at(messages.isoAbruptDrop(drop), block.rowSpan(i)));
+      break;
+    }
+  }
+  // Residual autocorrelation over the transformation.
+  let num = 0;
+  let den = 0;
+  let prev: number | null = null;
+  let count = 0;
+  for (let i = 0; i < n; i++) {
+    if (t[i] <= fit.t1 || t[i] >= fit.t2) continue;
+    const e = h[i] - model(t[i]);
+    if (prev !== null) num += (e - prev) ** 2;
+    den += e * e;
+    prev = e;
+    count++;
+  }
+  // Exact data have rounding-level residuals with no meaning: require residuals above 1e-9 of h.
+  const meaningful = fit.sigma > 1e-9 * Math.abs(fit.a + fit.b1 * fit.t1);
+  if (meaningful && count >= 20 && den > 0 && num / den < 1) diagnostics.push(at(messages.isoSigmoidal(num / den), block.header.kindSpan));
 }
 
 /** The transformed fraction x(t) = (h − h_VD)/(h_L − h_VD) with the fitted three segments. */

@@ -106,6 +106,8 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext): { analysi
     if (off?.measuredRate !== undefined) note(messages.rampRateMismatch(Math.abs(off.measuredRate), nominal), block.spanOf('/rate'));
   }
 
+  scanChecks(block, curve, time, segments, note);
+
   // Tg from the longest clean cooling segment.
   const coolings = segments.filter((s) => s.direction === 'cooling' && (time || s.backStep === undefined));
   const cooling = coolings.sort((a, b) => b.end - b.start - (a.end - a.start))[0];
@@ -200,6 +202,34 @@ function rampFigure(curve: Curve, lines: RampLines, results: Record<string, Resu
     ...(tf !== undefined ? [{ label: `Tf ${tf.toFixed(1)} K`, x: tf }] : []),
   ];
   return { xTitle: 'T / K', yTitle, series, markers };
+}
+
+/** Evaporation during holds and abrupt drops (METHODS.md §1 and §3 flags). */
+function scanChecks(block: ParsedBlock, c: Curve, time: Float64Array | null, segments: readonly Segment[], note: (m: Message, span: Span) => void): void {
+  // Point-to-point steps: an abrupt drop is a fall more than 10 times the typical step.
+  const n = c.h.length;
+  if (n >= 20) {
+    const steps: number[] = [];
+    for (let i = 1; i < n; i++) steps.push(Math.abs(c.h[i] - c.h[i - 1]));
+    const typical = [...steps].sort((a, b) => a - b)[Math.floor(steps.length / 2)];
+    for (let i = 1; i < n; i++) {
+      const drop = c.h[i - 1] - c.h[i];
+      if (typical > 0 && drop > 10 * typical && drop > 3 * Math.abs(c.h[Math.min(n - 1, i + 1)] - c.h[i])) {
+        note(messages.rampAbruptDrop(drop), block.rowSpan(i));
+        break;
+      }
+    }
+  }
+  if (!time) return;
+  const tgRef = block.quantities.get('/reference_temperature')?.value;
+  for (const s of segments) {
+    if (s.direction !== 'isothermal' || s.end - s.start < 8) continue;
+    const f = fitLine(time, c.h, s.start, s.end);
+    const hot = tgRef === undefined || c.T[s.start] > tgRef;
+    if (f && hot && f.slope < 0 && Math.abs(f.slope) > 4 * Math.sqrt(f.varSlope) && Math.abs(f.slope) * 60 > 1e-3) {
+      note(messages.rampEvaporation(-f.slope * 60), block.rowSpan(s.start));
+    }
+  }
 }
 
 function materialOf(block: ParsedBlock, ctx: AnalysisContext): ParsedBlock | undefined {
@@ -313,6 +343,32 @@ function firstHeating(
     }
     if (xs.length >= 3) break;
   }
+  // Densification before onset: the data fall clearly below the VD line before rising.
+  {
+    const sigma = Math.sqrt(vd.sigma2);
+    let below = 0;
+    for (let i = vdEnd; i < m; i++) {
+      const r = c.h[i] - predict(vd, c.T[i]);
+      if (r > 4 * sigma) break;
+      if (r < -4 * sigma) below++;
+    }
+    if (below >= 3) note(messages.rampDensification(), rowOf(vdEnd));
+  }
+  // The supercooled liquid on heating against the cooling one.
+  if (lines.scl && m > 10) {
+    const top = c.T[m - 1];
+    let sum = 0;
+    let k = 0;
+    for (let i = 0; i < m; i++) {
+      if (c.T[i] >= top - 5 && c.T[i] >= lines.scl.xmin) {
+        sum += c.h[i] - predict(lines.scl, c.T[i]);
+        k++;
+      }
+    }
+    const sigma = Math.sqrt(Math.max(lines.scl.sigma2, vd.sigma2));
+    if (k >= 3 && Math.abs(sum / k) > 5 * sigma && Math.abs(sum / k) > 1e-3 * Math.abs(lines.scl.c)) note(messages.rampSclShift(sum / k), rowOf(m - 1));
+  }
+
   const transformation = fitLine(xs, ys);
   if (transformation) {
     lines.transformation = transformation;

@@ -112,6 +112,7 @@ export const messages = {
     msg('deposition.pressure-implausible', 'warning', `Base pressure ${fmt(pa, 3)} Pa is not a plausible vacuum. Check the value and its unit.`),
   thicknessMismatch: (thickness: number, expected: number) =>
     msg('deposition.thickness-mismatch', 'warning', `Thickness ${fmt(thickness)} nm differs from rate × duration = ${fmt(expected)} nm by more than 15 %. Check the rate, the duration or the tooling factor.`),
+  rateUnstable: (rel: number) => msg('deposition.rate-unstable', 'warning', `The rate varies by ${fmt(100 * rel, 2)} % (more than 20 %): thickness and stability may vary across the film.`),
   tgReferenceUnknown: (material: string) =>
     msg('deposition.no-tg', 'warning', `Tsub/Tg cannot be computed: material "${material}" has no usable Tg.`),
 
@@ -150,6 +151,15 @@ export const messages = {
   rampNoOnset: () => msg('ramp.no-onset', 'warning', 'The first heating shows no departure from the as-deposited line: no transformation onset found in this scan.'),
   rampSlopesEqual: (what: string) => msg('ramp.parallel-lines', 'warning', `The two lines for ${what} are not clearly different in slope (t-test, p > 0.05); the intersection is unreliable.`),
 
+  rampEvaporation: (rate: number) =>
+    msg('ramp.evaporation', 'warning', `The thickness falls by ${fmt(rate, 2)} nm/min while held above Tg: the film may be evaporating, which biases the density gain.`),
+  rampAbruptDrop: (drop: number) =>
+    msg('ramp.abrupt-drop', 'warning', `The thickness drops abruptly by ${fmt(drop, 3)} nm here (crystallisation or dewetting?).`),
+  rampDensification: () =>
+    msg('ramp.densification-before-onset', 'warning', 'The film densifies before the transformation (it falls below the as-deposited line): typical of low-stability films; the as-deposited line is fitted below this point only.'),
+  rampSclShift: (shift: number) =>
+    msg('ramp.scl-shift', 'warning', `The supercooled liquid on heating lies ${fmt(shift, 3)} nm from the one on cooling: the film changed between the two (evaporation?), which biases the density gain.`),
+
   // Relaxation
   relaxNoColumns: () => msg('table.missing-column', 'error', 'The relaxation table needs a temperature column (T) and a relaxation-time column (tau).'),
   relaxNonPositive: (tau: number) => msg('relaxation.non-positive', 'error', `τ = ${fmt(tau)} s is not positive; this row is left out of the fit.`),
@@ -183,6 +193,10 @@ export const messages = {
     msg('isotherm.no-final-plateau', 'warning', 'No final plateau: the transformation had not finished when the data end, so the transformation time is a lower bound.'),
   isoTransformedDuringRamp: () =>
     msg('isotherm.transformed-during-ramp', 'warning', 'The transformation began before the hold temperature was reached: part of it happened during the ramp.'),
+  isoEvaporation: () => msg('isotherm.evaporation', 'warning', 'The thickness falls after the final plateau is reached (evaporation?): the final plateau slope was fitted, not assumed flat.'),
+  isoAbruptDrop: (drop: number) => msg('isotherm.abrupt-drop', 'warning', `The thickness drops abruptly by ${fmt(drop, 3)} nm here (crystallisation?).`),
+  isoSigmoidal: (dw: number) =>
+    msg('isotherm.sigmoidal', 'warning', `The transformation is not linear in time (Durbin–Watson ${fmt(dw, 2)} < 1 over it): a bulk or nucleation mechanism rather than a growth front, so the front velocity is not defined.`),
   isoNoTransformation: () => msg('isotherm.no-transformation', 'warning', 'The thickness does not change between the plateaus: no transformation found.'),
   isoNoVft: (material: string) =>
     msg('isotherm.no-vft', 'info', `No τα: material "${material}" has neither VFT parameters nor relaxation data, so no stability ratio is computed.`),
@@ -201,6 +215,7 @@ export const messages = {
   dscReferenceMismatch: (what: string) =>
     msg('dsc.reference-mismatch', 'error', `This scan and its reference differ in ${what}; the enthalpy gap needs the same heating rate and sample mass.`),
   dscReferenceNoData: (id: string) => msg('dsc.reference-no-data', 'warning', `The reference scan "${id}" has no usable heat capacity data.`),
+  dscPeaks: (kind: string) => msg('dsc.peaks', 'warning', `An ${kind} peak appears in the liquid region (crystallisation or melting?): the liquid baseline may be wrong.`),
   dscCpBelowReference: () =>
     msg('dsc.cp-below-reference', 'warning', 'In the glass region the heat capacity lies below that of the reference scan (reported for stable glasses); each scan uses its own glass baseline.'),
 
