@@ -50,6 +50,7 @@ function write(name, header, rows, sep, digits) {
 }
 
 write('D-02-cycle.csv', 't/s, T/K, h/nm', cycle({ seed: 2, tsub: 270, tg: 314, onset: 334, h0: 412, gain: 1.1, tmax: 345 }), ', ', [0, 2, 3]);
+write('Q-01-cycle.csv', 't/s, T/K, h/nm', cycle({ seed: 4, tsub: 245, tg: 284.5, onset: 300, h0: 360, gain: 1.35, ag: 1.8e-4, al: 7.0e-4, tmax: 312 }), ', ', [0, 2, 3]);
 write('D-03-cycle.tsv', 't (s)\tT (K)\th (nm)', cycle({ seed: 3, tsub: 296, tg: 314, onset: 326, h0: 388, gain: 0.35, tmax: 345 }), '\t', [0, 2, 3]);
 
 // Isothermal hold above Tg: plateau, linear front, plateau.

@@ -22,13 +22,13 @@ describe('vitrine report', function () {
     const out = path.join(tmp, 'demo.html');
     const r = await run(['report', 'fixtures/demo', '-o', out, '--csv', path.join(tmp, 'demo.csv'), '--png', path.join(tmp, 'png')]);
     assert.equal(r.code, 0, r.err);
-    assert.match(r.out, /wrote .*demo\.html \(7 block charts, 4 maps, 4 films\)/);
+    assert.match(r.out, /wrote .*demo\.html \(8 block charts, 4 maps, 4 films\)/);
     const html = fs.readFileSync(out, 'utf8');
     assert.doesNotMatch(html, /<script/i, 'no scripts');
     assert.doesNotMatch(html, /(src|href)="https?:/i, 'no network');
     assert.match(html, /Content-Security-Policy/);
-    assert.equal((html.match(/<section class="block/g) ?? []).length, 13, 'every data block has its section');
-    assert.equal((html.match(/<svg /g) ?? []).length, 7 + 4);
+    assert.equal((html.match(/<section class="block/g) ?? []).length, 14, 'every data block has its section');
+    assert.equal((html.match(/<svg /g) ?? []).length, 8 + 4);
     assert.match(html, /<h2 id="summary">/);
     // Prose from the notebook is rendered; numbers sit inside their block's section.
     assert.match(html, /<h1>2026-03-02 — first amberine-3 films<\/h1>/);
@@ -45,7 +45,7 @@ describe('vitrine report', function () {
 
   it('writes every chart as PNG', () => {
     const files = fs.readdirSync(path.join(tmp, 'png'));
-    assert.equal(files.length, 11);
+    assert.equal(files.length, 12);
     const png = fs.readFileSync(path.join(tmp, 'png', 'ramp-R-02.png'));
     assert.equal(png.subarray(1, 4).toString(), 'PNG');
   });

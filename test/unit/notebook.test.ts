@@ -66,6 +66,8 @@ describe('Notebook', () => {
     const d = toJsonReport(nb.analyze(['n.md'])).files[0].blocks[0].diagnostics.find((x) => x.code === 'quantity.bare-number');
     assert.ok(d);
     assert.deepEqual([d.line, d.column, d.endLine, d.endColumn], [5, 26, 5, 29]);
+    // The quick fix replaces exactly the bare number with the number and its unit.
+    assert.deepEqual(d.fix, { title: 'Write the unit: 250 K', newText: '250 K', line: 5, column: 26, endLine: 5, endColumn: 29 });
   });
 
   it('applies severity overrides and can turn a code off', () => {

@@ -25,9 +25,17 @@ export interface Message {
   readonly phase?: DiagnosticPhase;
 }
 
+/** An edit that repairs the problem, offered by editors as a quick fix (never applied silently). */
+export interface Fix {
+  readonly title: string;
+  readonly span: Span;
+  readonly newText: string;
+}
+
 export interface Diagnostic extends Message {
   readonly span: Span;
   readonly related?: readonly RelatedLocation[];
+  readonly fix?: Fix;
 }
 
 export function at(message: Message, span: Span, related?: readonly RelatedLocation[]): Diagnostic {

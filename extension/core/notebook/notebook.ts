@@ -326,7 +326,8 @@ class AnalysisRun {
       ...this.staleDiagnostics(block),
       ...analysis.diagnostics,
     ];
-    const absolute = relative.map((d) => ({ ...d, span: { start: d.span.start + start, end: d.span.end + start } }));
+    const shift = (s: Span): Span => ({ start: s.start + start, end: s.end + start });
+    const absolute = relative.map((d) => ({ ...d, span: shift(d.span), ...(d.fix ? { fix: { ...d.fix, span: shift(d.fix.span) } } : {}) }));
     absolute.sort((a, b) => a.span.start - b.span.start || a.span.end - b.span.end);
     return {
       kind: block.kind,

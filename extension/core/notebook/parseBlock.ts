@@ -207,7 +207,10 @@ export function parseBlock(input: ParseInput, host: NotebookHost, maxDataFileByt
         else push(messages.quantityNotFinite(label), span);
         continue;
       }
-      if (parsed.assumedUnit) push(messages.quantityBareNumber(label, c.unit), span);
+      if (parsed.assumedUnit) {
+        const unit = c.unit === 'J/(g*K)' ? 'J/(g*K)' : c.unit;
+        diagnostics.push({ ...at(messages.quantityBareNumber(label, c.unit), span), fix: { title: `Write the unit: ${raw} ${unit}`, span, newText: `${raw} ${unit}` } });
+      }
       quantities.set(pointer, parsed.quantity);
     }
   }

@@ -16,6 +16,7 @@ export interface JsonDiagnostic {
   endLine: number;
   endColumn: number;
   related?: readonly RelatedLocation[];
+  fix?: { title: string; newText: string; line: number; column: number; endLine: number; endColumn: number };
 }
 
 export interface JsonBlock {
@@ -40,6 +41,7 @@ export function jsonDiagnostic(d: Diagnostic, lines: LineIndex): JsonDiagnostic 
   const r = toOneBased(lines.rangeOf(visibleSpan(d.span, lines.text.length)));
   const out: JsonDiagnostic = { severity: d.severity, code: d.code, message: d.message, ...r };
   if (d.related) out.related = d.related;
+  if (d.fix) out.fix = { title: d.fix.title, newText: d.fix.newText, ...toOneBased(lines.rangeOf(d.fix.span)) };
   return out;
 }
 
