@@ -41,6 +41,12 @@ describe('chart snapshots', () => {
     assert.match(dark, /#1e1e1e/);
     check('ramp-R-02-dark', dark);
   });
+  it('escapes hostile text in titles, series names and labels', async () => {
+    const svg = await renderSvg(toVega(figureSpec('ramp <script>alert(1)</script>', { xTitle: '<b>T</b>', yTitle: 'h', series: [{ name: '<img src=x onerror=1>', role: 'data', points: [[1, 2], [2, 3]] }], markers: [{ label: '<i>m</i>', x: 1.5 }] })));
+    assert.doesNotMatch(svg, /<script|<img|<b>|<i>/);
+    assert.match(svg, /&lt;script&gt;alert\(1\)&lt;\/script&gt;/);
+  });
+
   it('stability maps', async () => {
     const maps = stabilityMapSpecs(summarise(report), report);
     assert.deepEqual(maps.map((m) => m.name), ['density-gain', 'fictive-temperature', 'stability-ratio', 'tg-rate']);
