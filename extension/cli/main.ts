@@ -24,6 +24,8 @@ commands:
   report PATH... -o FILE   write a self-contained HTML report with charts
 
 options:
+  --root DIR               the notebook folder; PATHs inside it are reported, and references
+                           and data paths resolve across the whole folder
   --summary                with check: print a table of the figures of merit per film
   --quiet                  with check: print errors only
   -o, --output FILE        with report: the HTML file to write
@@ -33,7 +35,8 @@ options:
   --version                print the version
 
 A directory is a notebook root: every .md file below it is read and references are resolved
-across them. Exit status: 0 no errors, 1 errors found, 2 usage or internal failure.`;
+across them. A file is read with the other files of its folder, unless --root names the notebook
+folder. Exit status: 0 no errors, 1 errors found, 2 usage or internal failure.`;
 
 export interface CliIo {
   readonly out: (text: string) => void;
@@ -66,9 +69,11 @@ function loadRoot(root: string, only: string[] | null, progress: Progress | null
   return { root, report: notebook.analyze(only ?? undefined) };
 }
 
-/** Groups the PATH arguments into notebook roots. */
-function runs(paths: readonly string[], cwd: string, progress: Progress | null = null): RootRun[] {
+/** Groups the PATH arguments into notebook roots (or puts them all under `--root`). */
+function runs(paths: readonly string[], cwd: string, progress: Progress | null = null, rootOption?: string): RootRun[] {
   const byRoot = new Map<string, string[] | null>();
+  const explicitRoot = rootOption ? path.resolve(cwd, rootOption) : null;
+  if (explicitRoot && !fs.existsSync(explicitRoot)) throw new UsageError(`--root ${rootOption}: no such folder`);
   for (const p of paths) {
     const abs = path.resolve(cwd, p);
     let stat: fs.Stats;
@@ -77,7 +82,18 @@ function runs(paths: readonly string[], cwd: string, progress: Progress | null =
     } catch {
       throw new UsageError(`${p}: no such file or folder`);
     }
-    if (stat.isDirectory()) {
+    if (explicitRoot) {
+      const rel = path.relative(explicitRoot, abs).split(path.sep).join('/');
+      if (rel.startsWith('..') || path.isAbsolute(rel)) throw new UsageError(`${p} is not inside --root ${rootOption}`);
+      const list = byRoot.get(explicitRoot);
+      if (list === null) continue;
+      if (stat.isDirectory() && rel === '') {
+        byRoot.set(explicitRoot, null);
+      } else {
+        const chosen = stat.isDirectory() ? markdownFiles(abs).map((f) => `${rel}/${f}`) : [rel];
+        byRoot.set(explicitRoot, [...(list ?? []), ...chosen]);
+      }
+    } else if (stat.isDirectory()) {
       byRoot.set(abs, null);
     } else {
       const root = path.dirname(abs);
@@ -129,7 +145,8 @@ async function dispatch(argv: readonly string[], io: CliIo): Promise<number> {
     return 0;
   }
   const command = args.shift();
-  if (command === 'report') return report(args, io);
+  const root = takeOption(args, ['--root']);
+  if (command === 'report') return report(args, io, root);
   const flags = new Set(args.filter((a) => a.startsWith('-')));
   const paths = args.filter((a) => !a.startsWith('-'));
   const known = command === 'check' ? ['--summary', '--quiet'] : command === 'analyze' ? ['--json'] : [];
@@ -139,7 +156,7 @@ async function dispatch(argv: readonly string[], io: CliIo): Promise<number> {
   if (paths.length === 0) throw new UsageError(`${command} needs at least one PATH`);
   if (command === 'analyze' && !flags.has('--json')) throw new UsageError('analyze writes JSON: add --json');
 
-  const all = runs(paths, io.cwd);
+  const all = runs(paths, io.cwd, null, root);
   let errors = 0;
   let warnings = 0;
   const json: JsonReport = { files: [] };
@@ -170,7 +187,7 @@ async function dispatch(argv: readonly string[], io: CliIo): Promise<number> {
   return errors > 0 ? 1 : 0;
 }
 
-async function report(args: string[], io: CliIo): Promise<number> {
+async function report(args: string[], io: CliIo, root: string | undefined): Promise<number> {
   const output = takeOption(args, ['-o', '--output']);
   const csv = takeOption(args, ['--csv']);
   const png = takeOption(args, ['--png']);
@@ -179,7 +196,7 @@ async function report(args: string[], io: CliIo): Promise<number> {
   if (!output) throw new UsageError('report needs -o FILE');
   if (args.length === 0) throw new UsageError('report needs at least one PATH');
   const progress = io.errIsTty ? progressBar(io.err) : null;
-  const all = runs(args, io.cwd, progress);
+  const all = runs(args, io.cwd, progress, root);
   const written = await writeReport(all, { output: path.resolve(io.cwd, output), csv: csv ? path.resolve(io.cwd, csv) : undefined, png: png ? path.resolve(io.cwd, png) : undefined, title: args.length === 1 ? `Vitrine report: ${path.basename(path.resolve(io.cwd, args[0]))}` : 'Vitrine report' });
   for (const line of written) io.out(line + '\n');
   const errors = all.reduce((n, r) => n + r.report.files.reduce((k, f) => k + f.blocks.reduce((m, b) => m + b.diagnostics.filter((d) => d.severity === 'error').length, 0), 0), 0);

@@ -34,6 +34,16 @@ describe('vitrine CLI', () => {
     assert.match(r.out, /^1 file, 3 data blocks/m);
   });
 
+  it('--root resolves the references and data paths of a file across the notebook folder', async () => {
+    const alone = await run(['check', 'fixtures/demo/days/2026-03-02.md']);
+    assert.equal(alone.code, 1, 'without --root the materials and data lie outside the file\'s folder');
+    const r = await run(['check', 'fixtures/demo/days/2026-03-02.md', '--root', 'fixtures/demo']);
+    assert.equal(r.code, 0, r.out);
+    assert.match(r.out, /^1 file, 3 data blocks: 0 errors/m);
+    const outside = await run(['check', 'fixtures/bad/units.md', '--root', 'fixtures/demo']);
+    assert.equal(outside.code, 2);
+  });
+
   it('analyze --json gives the results contract with 1-based lines', async () => {
     const r = await run(['analyze', 'fixtures/demo', '--json']);
     assert.equal(r.code, 0);
