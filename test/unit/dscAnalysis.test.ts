@@ -56,6 +56,19 @@ describe('dsc analysis', () => {
     assert.ok(Math.abs(b.results.tinflection.value - 315.0) < 0.03);
   });
 
+  it('places the onset of an error-function step at Tc − σ·√(2π)/2 (CHECKS.md §5.2)', () => {
+    // CHECKS.md §5.2 [computed]: σ = 2 K gives onset 312.4933717 K for Tc = 315 K. erf by
+    // Abramowitz & Stegun 7.1.26 (absolute error below 1.5e-7, ample for a 0.02 K check).
+    const erf = (x: number): number => {
+      const t = 1 / (1 + 0.3275911 * Math.abs(x));
+      const y = 1 - ((((1.061405429 * t - 1.453152027) * t + 1.421413741) * t - 0.284496736) * t + 0.254829592) * t * Math.exp(-x * x);
+      return x >= 0 ? y : -y;
+    };
+    const rows = grid(290, 340, 0.02).map((T) => [T, 1.2 + 0.003 * (T - 300) + 0.4 * 0.5 * (1 + erf((T - 315) / (Math.SQRT2 * 2)))]);
+    const b = scan(rows, 'windows:\n  glass: [290 K, 302 K]\n  liquid: [328 K, 340 K]\n')[1];
+    assert.ok(Math.abs(b.results.tonset.value - 312.4933717) < 0.02, `onset ${b.results.tonset.value}`);
+  });
+
   it('METHODS.md §6 test: Tf′ = 309.18 K for the logistic step with a 4 J/g overshoot', () => {
     // Cp,g = 1.2 + 0.004(T − 300), Cp,l = 1.6 + 0.002(T − 300), logistic at 320 K (width 2 K),
     // plus a Gaussian of area 4 J/g (its position and width do not change Tf′), T1 = 285, T2 = 355.

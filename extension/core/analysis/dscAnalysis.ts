@@ -141,12 +141,10 @@ export function analyzeDsc(block: ParsedBlock, ctx: AnalysisContext): Analysis {
     return { results, diagnostics };
   }
   const at0 = (f: LineFit, t: number): number => predict(f, t);
-  const mid = 0.5 * (at0(glass, tInfl) + at0(liquid, tInfl));
   if (!(at0(liquid, tInfl) > at0(glass, tInfl))) {
     diagnostics.push(at(messages.dscNoStep(), block.header.kindSpan));
     return { results, diagnostics };
   }
-  void mid;
   results.tinflection = result(tInfl, 'K', 'greatest slope of Cp (local linear regression)');
   // Tangent at the inflection: Cp = value + slope·(T − tInfl).
   const tangentMeets = (f: LineFit): number => (best.value - best.slope * tInfl - (f.c - f.slope * f.xc)) / (f.slope - best.slope);

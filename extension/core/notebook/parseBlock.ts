@@ -247,9 +247,6 @@ export function parseBlock(input: ParseInput, host: NotebookHost, maxDataFileByt
         const start = Math.min(lineSpan.start + p.start, lineSpan.end);
         push(p.message, { start, end: Math.min(Math.max(start, lineSpan.start + p.end), lineSpan.end) });
       }
-      if (inlineLines.every((l) => l.trim().length === 0 || l.trim().startsWith('#'))) {
-        // parseTable already said there is no header.
-      }
     } else if (typeof dataValue === 'string') {
       const valueSpan = spanOf('/data');
       const resolved = resolveNotebookPath(input.file, dataValue);
