@@ -108,3 +108,12 @@ describe('ramp flags', () => {
     assert.ok(b.diagnostics.some((d) => d.code === 'ramp.evaporation'), JSON.stringify(b.diagnostics.map((d) => d.code)));
   });
 });
+
+describe('ramp direction', () => {
+  it('warns when the stated direction disagrees with the data', () => {
+    const b = analyse(tableBlock('ramp', 'R-1', 'film: D-1\nrate: 1 K/min\ndirection: cooling\n', 't/s, T/K, h/nm', cycleRows(), 9));
+    assert.ok(b.diagnostics.some((d) => d.code === 'ramp.direction-mismatch'));
+    const ok = analyse(tableBlock('ramp', 'R-1', 'film: D-1\nrate: 1 K/min\ndirection: cycle\n', 't/s, T/K, h/nm', cycleRows(), 9));
+    assert.ok(!ok.diagnostics.some((d) => d.code === 'ramp.direction-mismatch'));
+  });
+});

@@ -107,6 +107,13 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext): { analysi
   }
 
   scanChecks(block, curve, time, segments, note);
+  const stated = block.metadata.data.direction;
+  if (typeof stated === 'string' && table.rowCount >= 10) {
+    const has = (d: string): boolean => segments.some((s) => s.direction === d && s.end - s.start >= 5);
+    const found = has('heating') && has('cooling') ? 'heating and cooling' : has('heating') ? 'heating only' : has('cooling') ? 'cooling only' : 'no temperature change';
+    const ok = stated === 'cycle' ? has('heating') && has('cooling') : has(stated) && !has(stated === 'heating' ? 'cooling' : 'heating');
+    if (!ok) note(messages.rampDirectionMismatch(stated, found), block.spanOf('/direction'));
+  }
 
   // Tg from the longest clean cooling segment.
   const coolings = segments.filter((s) => s.direction === 'cooling' && (time || s.backStep === undefined));

@@ -17,8 +17,8 @@ export function figureSpec(title: string, figure: FigureData, theme: Theme = 'li
   const names = [...new Set(figure.series.map((s) => s.name))];
   const dataPoints = figure.series.filter((s) => s.role === 'data').reduce((n, s) => n + s.points.length, 0);
   const color = { field: 'series', type: 'nominal', title: null, scale: { domain: names }, legend: { orient: 'bottom' } };
-  const x = { field: 'x', type: 'quantitative', title: figure.xTitle, scale: { zero: false, nice: false } };
-  const y = { field: 'y', type: 'quantitative', title: figure.yTitle, scale: { zero: false } };
+  const x = { field: 'x', type: 'quantitative', title: figure.xTitle, scale: { zero: false, nice: false, padding: 6 } };
+  const y = { field: 'y', type: 'quantitative', title: figure.yTitle, scale: { zero: false, padding: 6 } };
   const layers: VegaLiteSpec[] = [
     { transform: [{ filter: "datum.role === 'area'" }], mark: { type: 'area', opacity: 0.18 }, encoding: { x, y, y2: { field: 'y2' }, color } },
     { transform: [{ filter: "datum.role === 'data'" }], mark: { type: 'point', filled: true, size: dataPoints < 200 ? 30 : 9, opacity: 0.8 }, encoding: { x, y, color } },

@@ -151,6 +151,8 @@ export const messages = {
   rampNoOnset: () => msg('ramp.no-onset', 'warning', 'The first heating shows no departure from the as-deposited line: no transformation onset found in this scan.'),
   rampSlopesEqual: (what: string) => msg('ramp.parallel-lines', 'warning', `The two lines for ${what} are not clearly different in slope (t-test, p > 0.05); the intersection is unreliable.`),
 
+  rampDirectionMismatch: (stated: string, found: string) =>
+    msg('ramp.direction-mismatch', 'warning', `"direction: ${stated}" but the data show ${found}. Check the metadata or the temperature column.`),
   rampEvaporation: (rate: number) =>
     msg('ramp.evaporation', 'warning', `The thickness falls by ${fmt(rate, 2)} nm/min while held above Tg: the film may be evaporating, which biases the density gain.`),
   rampAbruptDrop: (drop: number) =>
