@@ -11,6 +11,7 @@ export interface ResultValue {
 export type Results = Readonly<Record<string, ResultValue>>;
 
 export function result(value: number, unit: string, method: string, uncertainty?: number, interval?: readonly [number, number]): ResultValue {
-  const base: ResultValue = uncertainty !== undefined && Number.isFinite(uncertainty) ? { value, unit, uncertainty, method } : { value, unit, method };
+  // A standard uncertainty is a magnitude; propagated formulas may carry the sign of the value.
+  const base: ResultValue = uncertainty !== undefined && Number.isFinite(uncertainty) ? { value, unit, uncertainty: Math.abs(uncertainty), method } : { value, unit, method };
   return interval && interval.every(Number.isFinite) ? { ...base, interval } : base;
 }
