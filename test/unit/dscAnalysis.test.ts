@@ -93,6 +93,16 @@ describe('dsc analysis', () => {
     assert.ok(Math.abs(b.results.tfictive.value - 315.0) < 1e-6);
   });
 
+  it('converts a heat flow per mass with the rate alone', () => {
+    // Cp = φ/q: 0.2 W/g at 12 K/min (0.2 K/s) is 1 J/(g K) [computed].
+    const nb = new Notebook(new InMemoryHost());
+    nb.setFile('m.md', MATERIAL_BLOCK(315));
+    const rows = grid(300, 340, 0.05).map((T) => [T, caseA(T) * 0.2]);
+    nb.setFile('d.md', DEPOSITION_BLOCK('D-1', 270) + tableBlock('dsc', 'C-1', `film: D-1\nrate: 12 K/min\nquantity: heat flow\nmass: 5 mg\n${windows}`, 'T/K, Phi/(W/g)', rows, 12));
+    const b = toJsonReport(nb.analyze(['d.md'])).files[0].blocks[1];
+    assert.ok(Math.abs(b.results.tfictive.value - 315.0) < 1e-6, JSON.stringify(b.diagnostics));
+  });
+
   it('refuses baseline windows that reach into the step', () => {
     const b = scan(grid(300, 340, 0.05).map((T) => [T, caseA(T)]), 'windows:\n  glass: [300 K, 318 K]\n  liquid: [328 K, 340 K]\n')[1];
     assert.ok(b.diagnostics.some((d) => d.code === 'dsc.window-overlap'));

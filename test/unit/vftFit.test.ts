@@ -80,3 +80,19 @@ describe('fitVft', () => {
     assert.equal(fitVft([300, 310, 320], [1, 0, -1]), null);
   });
 });
+
+describe('relaxation blocks', () => {
+  it('read τ from a log10_tau column as well as from tau', async () => {
+    const { InMemoryHost, Notebook, toJsonReport } = await import('../../extension/core/index.js');
+    const rows = Array.from({ length: 12 }, (_, i) => 250 + 5 * i).map((T) => [T, -14 + 777.4815 / (T - 197.4074)]);
+    const block = (header: string, f: (r: number[]) => string) => `\`\`\`relaxation X\nmaterial: M\nmethod: test\n---\n${header}\n${rows.map(f).join('\n')}\n\`\`\`\n`;
+    const nb = new Notebook(new InMemoryHost());
+    nb.setFile('m.md', '```material M\nname: m\ntg: 246 K\ntg_source: test\n```\n');
+    nb.setFile('a.md', block('T/K, log10_tau', (r) => `${r[0]}, ${r[1]}`));
+    nb.setFile('b.md', block('T/K, tau/s', (r) => `${r[0]}, ${Math.pow(10, r[1])}`));
+    const [a, b] = toJsonReport(nb.analyze(['a.md', 'b.md'])).files.map((f) => f.blocks[0].results);
+    // CHECKS.md §2.3 o-terphenyl triple: Tg = 246 K, m = 81.
+    assert.ok(Math.abs(a.tg_vft.value - 246) < 0.01 && Math.abs(b.tg_vft.value - 246) < 0.01);
+    assert.ok(Math.abs(a.fragility.value - b.fragility.value) < 1e-6);
+  });
+});

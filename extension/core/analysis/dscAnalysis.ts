@@ -37,10 +37,15 @@ export function dscCurve(block: ParsedBlock): DscCurve | { error: 'columns' | 'm
   const table = block.table;
   const T = table?.byRole.get('temperature')?.values;
   const heatFlow = block.metadata.data.quantity === 'heat flow';
-  const y = heatFlow ? table?.byRole.get('heat_flow')?.values : table?.byRole.get('heat_capacity')?.values;
+  const specific = heatFlow ? table?.byRole.get('specific_heat_flow')?.values : undefined;
+  const y = heatFlow ? (specific ?? table?.byRole.get('heat_flow')?.values) : table?.byRole.get('heat_capacity')?.values;
   if (!T || !y) return { error: 'columns' };
   let factor = 1;
-  if (heatFlow) {
+  if (specific) {
+    const rate = block.quantities.get('/rate')?.value; // K/min
+    if (!rate) return { error: 'mass' };
+    factor = 1 / (rate / 60); // (W/g)/(K/s) = J/(g·K)
+  } else if (heatFlow) {
     const mass = block.quantities.get('/mass')?.value; // mg
     const rate = block.quantities.get('/rate')?.value; // K/min
     if (!mass || !rate) return { error: 'mass' };

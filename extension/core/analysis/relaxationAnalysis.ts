@@ -22,9 +22,17 @@ export interface RelaxationFit {
 }
 
 /** The VFT fit of a relaxation block, or null (no diagnostics: see analyzeRelaxation). */
+/** τ in s from a `tau` column, or from a `log10_tau` column (log10 of τ in s). */
+export function tauColumn(block: ParsedBlock): Float64Array | undefined {
+  const tau = block.table?.byRole.get('tau')?.values;
+  if (tau) return tau;
+  const log = block.table?.byRole.get('log10_tau')?.values;
+  return log ? Float64Array.from(log, (v) => Math.pow(10, v)) : undefined;
+}
+
 export function relaxationFit(block: ParsedBlock): RelaxationFit | null {
   const T = block.table?.byRole.get('temperature')?.values;
-  const tau = block.table?.byRole.get('tau')?.values;
+  const tau = tauColumn(block);
   if (!T || !tau) return null;
   const xs: number[] = [];
   const ys: number[] = [];
@@ -44,7 +52,7 @@ export function analyzeRelaxation(block: ParsedBlock, _ctx: AnalysisContext): An
   const table = block.table;
   if (!table || table.rowCount === 0) return { results, diagnostics };
   const T = table.byRole.get('temperature')?.values;
-  const tau = table.byRole.get('tau')?.values;
+  const tau = tauColumn(block);
   if (!T || !tau) {
     if (table.problems.length === 0) diagnostics.push(at(messages.relaxNoColumns(), block.spanOf('/data')));
     return { results, diagnostics };

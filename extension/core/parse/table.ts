@@ -19,7 +19,7 @@ import { messages } from '../diagnostics/messages.js';
 import type { Message } from '../diagnostics/diagnostic.js';
 import { CANONICAL, hasDimension, lookupUnit, toCanonical, type Dimension } from './units.js';
 
-export type ColumnRole = 'time' | 'temperature' | 'thickness' | 'volume' | 'heat_capacity' | 'heat_flow' | 'tau';
+export type ColumnRole = 'time' | 'temperature' | 'thickness' | 'volume' | 'heat_capacity' | 'heat_flow' | 'specific_heat_flow' | 'tau' | 'log10_tau';
 
 export const ROLE_DIMENSION: Readonly<Record<ColumnRole, Dimension>> = {
   time: 'time',
@@ -29,7 +29,12 @@ export const ROLE_DIMENSION: Readonly<Record<ColumnRole, Dimension>> = {
   heat_capacity: 'heat_capacity',
   heat_flow: 'heat_flow',
   tau: 'time',
+  log10_tau: 'dimensionless',
+  specific_heat_flow: 'specific_heat_flow',
 };
+
+/** A column whose unit fits another dimension takes that role instead (heat flow per mass). */
+const ALTERNATIVE_ROLE: Partial<Record<ColumnRole, ColumnRole>> = { heat_flow: 'specific_heat_flow' };
 
 export const ROLE_SYMBOLS: Readonly<Record<ColumnRole, readonly string[]>> = {
   time: ['t', 'time'],
@@ -39,6 +44,8 @@ export const ROLE_SYMBOLS: Readonly<Record<ColumnRole, readonly string[]>> = {
   heat_capacity: ['Cp', 'cp', 'C_p', 'c_p', 'heat_capacity'],
   heat_flow: ['Phi', 'phi', 'Φ', 'heat_flow', 'HF'],
   tau: ['tau', 'τ', 'tau_alpha'],
+  log10_tau: ['log10_tau', 'log_tau', 'logtau', 'lg_tau'],
+  specific_heat_flow: [],
 };
 
 const SYMBOL_ROLE = new Map<string, ColumnRole>();
@@ -204,6 +211,10 @@ export function parseTable(lines: readonly string[], columnsMap: Readonly<Record
     }
     const dimension = ROLE_DIMENSION[role];
     units.push(CANONICAL[dimension].unit);
+    if (unit === '' && dimension === 'dimensionless') {
+      convert.push((v) => v);
+      return;
+    }
     if (unit === '') {
       report(messages.tableNoUnit(readHeader(c.text).symbol), headerIndex, c.start, c.end);
       convert.push(null);
@@ -217,14 +228,21 @@ export function parseTable(lines: readonly string[], columnsMap: Readonly<Record
       roles[i] = null;
       return;
     }
-    if (!hasDimension(resolved, dimension)) {
+    let dim = dimension;
+    const alternative = ALTERNATIVE_ROLE[role];
+    if (!hasDimension(resolved, dimension) && alternative && hasDimension(resolved, ROLE_DIMENSION[alternative])) {
+      roles[i] = alternative;
+      dim = ROLE_DIMENSION[alternative];
+      units[units.length - 1] = CANONICAL[dim].unit;
+    }
+    if (!hasDimension(resolved, dim)) {
       report(messages.tableWrongDimension(c.text, unit, CANONICAL[dimension].words), headerIndex, c.start, c.end);
       convert.push(null);
       roles[i] = null;
       return;
     }
-    const factor = toCanonical(1, resolved, dimension) - toCanonical(0, resolved, dimension);
-    const offset = toCanonical(0, resolved, dimension);
+    const factor = toCanonical(1, resolved, dim) - toCanonical(0, resolved, dim);
+    const offset = toCanonical(0, resolved, dim);
     convert.push(factor === 1 && offset === 0 ? (v) => v : (v) => v * factor + offset);
   });
 

@@ -24,6 +24,7 @@ export type Dimension =
   | 'molar_mass'
   | 'specific_volume'
   | 'heat_flow'
+  | 'specific_heat_flow'
   | 'specific_enthalpy'
   | 'dimensionless';
 
@@ -41,6 +42,7 @@ export const CANONICAL: Readonly<Record<Dimension, { unit: string; mathjs: strin
   molar_mass: { unit: 'g/mol', mathjs: 'g/mol', words: 'a molar mass', example: '357.8 g/mol' },
   specific_volume: { unit: 'cm^3/g', mathjs: 'cm^3/g', words: 'a specific volume', example: '0.77 cm^3/g' },
   heat_flow: { unit: 'mW', mathjs: 'mW', words: 'a heat flow (power)', example: '1.2 mW' },
+  specific_heat_flow: { unit: 'W/g', mathjs: 'W/g', words: 'a heat flow per mass', example: '0.02 W/g' },
   specific_enthalpy: { unit: 'J/g', mathjs: 'J/g', words: 'an enthalpy per mass', example: '8 J/g' },
   dimensionless: { unit: '1', mathjs: '', words: 'a pure number', example: '0.5' },
 };
