@@ -66,3 +66,27 @@ describe('parseTable', () => {
     assert.equal(parseTable(['T/K, h/nm']).problems[0].message.code, 'table.no-rows');
   });
 });
+
+describe('parseTable header forms from instruments', () => {
+  it('reads units from a second header line', () => {
+    const t = parseTable(['Temperature, Thickness', 'K, nm', '300, 100', '301, 101']);
+    assert.equal(t.rowCount, 2);
+    assert.equal(t.byRole.get('temperature')?.values[1], 301);
+    assert.equal(t.byRole.get('thickness')?.values[0], 100);
+    assert.deepEqual(t.problems, []);
+  });
+
+  it('recognises spelled-out column names in any case, but keeps t and T apart', () => {
+    const t = parseTable(['time (min), TEMPERATURE (°C), thickness (nm)', '1, 25, 100']);
+    assert.equal(t.byRole.get('time')?.values[0], 60);
+    assert.equal(t.byRole.get('temperature')?.values[0], 298.15);
+    const u = parseTable(['t/s, T/K', '1, 300']);
+    assert.equal(u.byRole.get('time')?.values[0], 1);
+    assert.equal(u.byRole.get('temperature')?.values[0], 300);
+  });
+
+  it('reads exponents written without a caret', () => {
+    const t = parseTable(['T/K, Cp/(J g-1 K-1)', '300, 1.5']);
+    assert.equal(t.byRole.get('heat_capacity')?.values[0], 1.5);
+  });
+});

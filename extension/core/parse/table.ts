@@ -53,6 +53,18 @@ for (const [role, symbols] of Object.entries(ROLE_SYMBOLS) as Array<[ColumnRole,
   for (const s of symbols) SYMBOL_ROLE.set(s, role);
 }
 
+/** The role of a header symbol: exact first (t and T differ), then words in any case. */
+export function roleOfSymbol(symbol: string): ColumnRole | null {
+  const exact = SYMBOL_ROLE.get(symbol);
+  if (exact) return exact;
+  if (symbol.length < 3) return null;
+  const lower = symbol.toLowerCase().replace(/[\s-]+/g, '_');
+  for (const [s, role] of SYMBOL_ROLE) if (s.length >= 3 && s.toLowerCase() === lower) return role;
+  return null;
+}
+
+const UNIT_ROW_CELL = /^[([]?[A-Za-zµμÅ°℃%][^\d]*[)\]]?$|^[([]?1\/[A-Za-z].*$/;
+
 export interface TableLine {
   readonly text: string;
 }
@@ -173,19 +185,31 @@ export function parseTable(lines: readonly string[], columnsMap: Readonly<Record
   const headerText = lines[headerIndex];
   const delimiter = detectDelimiter(headerText);
   const hcells = headerCells(headerText, delimiter);
+  const headers = hcells.map((c) => readHeader(c.text));
+  // Instrument exports often put the units on a second header line: "T, h" then "K, nm".
+  let firstRow = headerIndex + 1;
+  if (headers.every((h) => h.unit === '')) {
+    let next = firstRow;
+    while (next < lines.length && (lines[next].trim() === '' || lines[next].trim().startsWith('#'))) next++;
+    const unitCells = next < lines.length ? splitCells(lines[next], delimiter) : [];
+    if (unitCells.length === hcells.length && unitCells.every((u) => UNIT_ROW_CELL.test(u.text) && lookupUnit(u.text.replace(/^[([]|[)\]]$/g, '')) !== null)) {
+      unitCells.forEach((u, i) => (headers[i] = { symbol: headers[i].symbol, unit: u.text.replace(/^[([]|[)\]]$/g, '') }));
+      firstRow = next + 1;
+    }
+  }
 
   // Which role does each column have? `columns:` first, then symbols.
   const explicit = new Map<number, ColumnRole>();
   for (const [role, name] of Object.entries(columnsMap)) {
-    const idx = hcells.findIndex((c) => c.text === name || readHeader(c.text).symbol === name);
+    const idx = hcells.findIndex((c, i) => c.text === name || headers[i].symbol === name);
     if (idx >= 0) explicit.set(idx, role as ColumnRole);
     else report(messages.tableColumnsUnknownHeader(role, name), headerIndex, 0, headerText.length);
   }
   const explicitRoles = new Set(explicit.values());
-  const roles: Array<ColumnRole | null> = hcells.map((c, i) => {
+  const roles: Array<ColumnRole | null> = hcells.map((_c, i) => {
     const e = explicit.get(i);
     if (e) return e;
-    const r = SYMBOL_ROLE.get(readHeader(c.text).symbol) ?? null;
+    const r = roleOfSymbol(headers[i].symbol);
     return r && explicitRoles.has(r) ? null : r;
   });
   const seen = new Set<ColumnRole>();
@@ -202,7 +226,7 @@ export function parseTable(lines: readonly string[], columnsMap: Readonly<Record
   const convert: Array<((v: number) => number) | null> = [];
   const units: string[] = [];
   hcells.forEach((c, i) => {
-    const { unit } = readHeader(c.text);
+    const { unit } = headers[i];
     const role = roles[i];
     if (!role) {
       convert.push(null);
@@ -216,7 +240,7 @@ export function parseTable(lines: readonly string[], columnsMap: Readonly<Record
       return;
     }
     if (unit === '') {
-      report(messages.tableNoUnit(readHeader(c.text).symbol), headerIndex, c.start, c.end);
+      report(messages.tableNoUnit(headers[i].symbol), headerIndex, c.start, c.end);
       convert.push(null);
       roles[i] = null;
       return;
@@ -249,7 +273,7 @@ export function parseTable(lines: readonly string[], columnsMap: Readonly<Record
   const ncol = hcells.length;
   const rows: number[][] = [];
   const rowLines: number[] = [];
-  for (let i = headerIndex + 1; i < lines.length; i++) {
+  for (let i = firstRow; i < lines.length; i++) {
     const text = lines[i];
     const trimmed = text.trim();
     if (trimmed.length === 0 || trimmed.startsWith('#')) continue;
@@ -293,7 +317,7 @@ export function parseTable(lines: readonly string[], columnsMap: Readonly<Record
   const columns: TableColumn[] = hcells.map((c, j) => {
     const values = new Float64Array(rows.length);
     for (let r = 0; r < rows.length; r++) values[r] = rows[r][j];
-    const { symbol, unit } = readHeader(c.text);
+    const { symbol, unit } = headers[j];
     return {
       header: c.text,
       symbol,

@@ -70,6 +70,8 @@ export function normaliseUnitText(text: string): string {
   s = s.replace(/[·⋅×]/g, '*');
   s = s.replace(/²/g, '^2').replace(/³/g, '^3').replace(/⁻¹/g, '^-1').replace(/⁻²/g, '^-2');
   s = s.replace(/\s*\*\s*/g, '*').replace(/\s*\/\s*/g, '/');
+  // Exponents written without a caret: "K min-1", "J g-1 K-1".
+  s = s.replace(/([A-Za-z])(-\d+)(?![\d.])/g, '$1^$2');
   // A space between two unit factors is a product: "J g^-1 K^-1".
   s = s.replace(/([A-Za-z0-9)])\s+(?=[A-Za-z(])/g, '$1*');
   return s;
