@@ -117,3 +117,20 @@ describe('ramp direction', () => {
     assert.ok(!ok.diagnostics.some((d) => d.code === 'ramp.direction-mismatch'));
   });
 });
+
+describe('ramp without a time column', () => {
+  it('splits a heat–cool cycle by the temperature alone and gives the same figures', () => {
+    const rows = cycleRows().map(([, T, h]) => [T, h]);
+    const b = analyse(tableBlock('ramp', 'R-1', 'film: D-1\nrate: 1 K/min\nreference_temperature: 300 K\n', 'T/K, h/nm', rows, 9));
+    assert.ok(Math.abs(b.results.tg.value - 315) < 1e-6, JSON.stringify(b.diagnostics));
+    assert.ok(Math.abs(b.results.tfictive.value - 299.0) < 1e-6);
+    assert.ok(Math.abs(b.results.density_gain.value - 0.8008008008) < 1e-6);
+  });
+
+  it('reads specific volume instead of thickness', () => {
+    const rows = cycleRows().map(([t, T, h]) => [t, T, h / 100]);
+    const b = analyse(tableBlock('ramp', 'R-1', 'film: D-1\nrate: 1 K/min\nreference_temperature: 300 K\n', 't/s, T/K, V/(cm^3/g)', rows, 12));
+    assert.ok(Math.abs(b.results.tfictive.value - 299.0) < 1e-6);
+    assert.ok(Math.abs(b.results.density_gain.value - 0.8008008008) < 1e-6);
+  });
+});
