@@ -1,6 +1,6 @@
 /**
  * Levenberg–Marquardt least squares with Marquardt's diagonal scaling (Moré, "The
- * Levenberg–Marquardt algorithm: implementation and theory", Lecture Notes in Mathematics 630
+ * Levenberg–Marquardt algorithm: implementation and theory", Numerical Analysis, Springer LNM 630
  * (1978)). Each step solves the damped problem [J; √λ·D] δ = [−r; 0] by Householder QR, so JᵀJ
  * is never formed. Checked against NIST StRD nonlinear problems in the tests.
  *
