@@ -41,6 +41,9 @@ describe('ramp analysis', () => {
     assert.ok(Math.abs(b.results.density_gain.value - 0.8008008008) < 1e-6, `gain ${b.results.density_gain.value}`);
     assert.equal(b.results.reference_temperature.value, 300);
     assert.ok(Math.abs(b.results.tonset.value - 326) < 0.3, `onset ${b.results.tonset.value}`);
+    // Exact lines: moving the windows changes nothing, and the method says so.
+    const spread = Number(/window sensitivity ±(\S+) K$/.exec(b.results.tfictive.method)?.[1]);
+    assert.ok(spread < 1e-9, b.results.tfictive.method);
     // α at Tg: 0.02/101 and 0.07/101 [computed].
     assert.ok(Math.abs(b.results.alpha_glass.value - 0.02 / 101) < 1e-10);
     assert.ok(Math.abs(b.results.alpha_liquid.value - 0.07 / 101) < 1e-10);

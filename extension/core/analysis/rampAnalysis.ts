@@ -73,12 +73,45 @@ export interface RampLines {
   readonly segments: readonly Segment[];
 }
 
+/** Choices an analysis makes by itself; varied to measure how much the figures depend on them. */
+interface RampChoices {
+  /** Distance of the glass and liquid lines from Tg, K (default 5, shrunk for sparse data). */
+  readonly gap?: number;
+  /** Move the end of the automatic as-deposited window this many kelvin lower. */
+  readonly vdTrim?: number;
+  /** Leave out this many kelvin at both ends of the cooling segment. */
+  readonly coolTrim?: number;
+}
+
+const VARIANTS: readonly RampChoices[] = [{ gap: 3 }, { gap: 8 }, { vdTrim: 5 }, { coolTrim: 5 }];
+
+/**
+ * The ramp analysis, with the sensitivity of Tg, Tonset, Tf and the density gain to the choices
+ * of windows (METHODS.md §1: move window edges by 5 K and report the spread): the largest change
+ * over the variants is named in the method, beside the statistical uncertainty.
+ */
 export function analyzeRamp(block: ParsedBlock, ctx: AnalysisContext): Analysis {
-  return rampDetails(block, ctx).analysis;
+  const nominal = rampDetails(block, ctx).analysis;
+  const names = ['tg', 'tonset', 'tfictive', 'density_gain'].filter((n) => nominal.results[n]);
+  if (names.length === 0) return nominal;
+  const spread = new Map<string, number>();
+  for (const choice of VARIANTS) {
+    const r = rampDetails(block, ctx, choice).analysis.results;
+    for (const n of names) {
+      const v = r[n]?.value;
+      if (v !== undefined) spread.set(n, Math.max(spread.get(n) ?? 0, Math.abs(v - nominal.results[n].value)));
+    }
+  }
+  const results = { ...nominal.results };
+  for (const [n, s] of spread) {
+    const r = results[n];
+    results[n] = { ...r, method: `${r.method}; window sensitivity ±${Number(s.toPrecision(2))} ${r.unit === '1' ? '' : r.unit}`.trimEnd() };
+  }
+  return { ...nominal, results };
 }
 
 /** The analysis and the fitted lines (the charts draw them). */
-export function rampDetails(block: ParsedBlock, ctx: AnalysisContext): { analysis: Analysis; lines: RampLines } {
+export function rampDetails(block: ParsedBlock, ctx: AnalysisContext, choices: RampChoices = {}): { analysis: Analysis; lines: RampLines } {
   const diagnostics: Diagnostic[] = [];
   const results: Record<string, ResultValue> = {};
   const empty = { analysis: { results, diagnostics }, lines: { segments: [] } };
@@ -122,7 +155,20 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext): { analysi
   if (!cooling) {
     if (table.rowCount >= 10) note(messages.rampNoCooling(), block.header.kindSpan);
   } else {
-    const c = slice(curve, cooling);
+    let c = slice(curve, cooling);
+    if (choices.coolTrim) {
+      let lo = Infinity;
+      let hi = -Infinity;
+      for (const T of c.T) {
+        lo = Math.min(lo, T);
+        hi = Math.max(hi, T);
+      }
+      const keep: number[] = [];
+      c.T.forEach((T, i) => {
+        if (T >= lo + choices.coolTrim! && T <= hi - choices.coolTrim!) keep.push(i);
+      });
+      c = { T: Float64Array.from(keep, (i) => c.T[i]), h: Float64Array.from(keep, (i) => c.h[i]) };
+    }
     const glassW = window(block, 'glass');
     const liquidW = window(block, 'liquid');
     if (glassW && liquidW) {
@@ -166,7 +212,7 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext): { analysi
       const material = materialOf(block, ctx);
       const ref = material ? statedTg(material) : null;
       if (ref && Math.abs(tg - ref.value) > 10) note(messages.rampTgFar(tg, ref.value, nominal ?? NaN), block.rowSpan(cooling.start));
-      const gap = chooseGap(c, tg);
+      const gap = choices.gap ?? chooseGap(c, tg);
       lines.lc = fitWhere(c, glassW ? (T) => T >= glassW[0] && T <= glassW[1] : (T) => T <= tg! - gap) ?? undefined;
       lines.scl = fitWhere(c, liquidW ? (T) => T >= liquidW[0] && T <= liquidW[1] : (T) => T >= tg! + gap) ?? undefined;
     }
@@ -175,7 +221,7 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext): { analysi
   // First heating of the as-deposited film.
   const first = segments[0];
   if (first && first.direction === 'heating' && first.end - first.start >= 10) {
-    firstHeating(block, ctx, slice(curve, first), first, lines, results, note);
+    firstHeating(block, ctx, slice(curve, first), first, lines, results, note, choices.vdTrim ?? 0);
   }
   const quantity = hcol.role === 'volume' ? `V / (${hcol.unit})` : 'h / nm';
   return { analysis: { results, diagnostics, figure: rampFigure(curve, lines, results, quantity) }, lines };
@@ -268,6 +314,7 @@ function firstHeating(
   lines: { vd?: LineFit; scl?: LineFit; lc?: LineFit; transformation?: LineFit },
   results: Record<string, ResultValue>,
   note: (m: Message, span: Span) => void,
+  vdTrim: number,
 ): void {
   const m = c.T.length;
   const depositedW = window(block, 'deposited');
@@ -299,6 +346,10 @@ function firstHeating(
     if (deviation >= 0) {
       vdEnd = deviation;
       while (vdEnd > 3 && c.T[vdEnd - 1] > c.T[deviation] - 2) vdEnd--;
+      if (vdTrim > 0) {
+        const limit = c.T[Math.max(0, vdEnd - 1)] - vdTrim;
+        while (vdEnd > 3 && c.T[vdEnd - 1] > limit) vdEnd--;
+      }
       vd = fitLine(c.T, c.h, 0, vdEnd) ?? vd;
     }
   }
