@@ -1,5 +1,6 @@
 /**
- * The static HTML report: the notebook's files in order with their prose rendered by unified
+ * The static HTML report: the notebook's files in reading order (top-level files first, then
+ * each folder by path) with their prose rendered by unified
  * (remark → rehype → sanitize → stringify), each data block replaced by its chart, results table
  * and diagnostics, then the summary table and the stability maps. One self-contained file: no
  * scripts, no network. Everything taken from the notebook is escaped or sanitized; the only raw
@@ -128,8 +129,16 @@ function fileHtml(file: NotebookReport['files'][number], charts: ReadonlyMap<Blo
   return html;
 }
 
+/** Files at the top of the notebook (materials, overviews) first, then folders, each by path. */
+function readingOrder(a: { path: string }, b: { path: string }): number {
+  const da = a.path.split('/').length;
+  const db = b.path.split('/').length;
+  return da - db || (a.path < b.path ? -1 : a.path > b.path ? 1 : 0);
+}
+
 export function buildHtmlReport(input: ReportInput): string {
-  const files = input.report.files
+  const files = [...input.report.files]
+    .sort(readingOrder)
     .map((f) => {
       const fileDiags = f.diagnostics.map((d) => `<li class="${escapeHtml(d.severity)}"><span class="sev">${escapeHtml(d.severity)}</span> ${escapeHtml(d.message)} <code class="code">${escapeHtml(d.code)}</code></li>`).join('');
       return `<h2 class="file">${escapeHtml(f.path)}</h2>${fileDiags ? `<ul class="diagnostics">${fileDiags}</ul>` : ''}<article>${fileHtml(f, input.charts)}</article>`;
