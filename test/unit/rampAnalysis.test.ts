@@ -41,6 +41,8 @@ describe('ramp analysis', () => {
     assert.ok(Math.abs(b.results.density_gain.value - 0.8008008008) < 1e-6, `gain ${b.results.density_gain.value}`);
     assert.equal(b.results.reference_temperature.value, 300);
     assert.ok(Math.abs(b.results.tonset.value - 326) < 0.3, `onset ${b.results.tonset.value}`);
+    // The first point past 326 K leaves the exact VD line: 326.25 K.
+    assert.equal(b.results.tonset_deviation.value, 326.25);
     // Exact lines: moving the windows changes nothing, and the method says so.
     const spread = Number(/window sensitivity ±(\S+) K$/.exec(b.results.tfictive.method)?.[1]);
     assert.ok(spread < 1e-9, b.results.tfictive.method);

@@ -427,6 +427,19 @@ function firstHeating(
     if (k >= 3 && Math.abs(sum / k) > 5 * sigma && Math.abs(sum / k) > 1e-3 * Math.abs(lines.scl.c)) note(messages.rampSclShift(sum / k), rowOf(m - 1));
   }
 
+  // Deviation onset (METHODS.md §3): the first of 3 consecutive points beyond 3σ of the VD line.
+  {
+    const sigma = Math.max(Math.sqrt(vd.sigma2), 1e-9 * Math.abs(vd.c));
+    let run = 0;
+    for (let i = 0; i < m; i++) {
+      run = Math.abs(c.h[i] - predict(vd, c.T[i])) > 3 * sigma && c.T[i] > vd.xmin ? run + 1 : 0;
+      if (run === 3 && i - 2 >= vdEnd - 1) {
+        results.tonset_deviation = result(c.T[i - 2], 'K', 'first of 3 consecutive points more than 3σ from the as-deposited line (noise-sensitive; reported beside the extrapolated onset)');
+        break;
+      }
+    }
+  }
+
   const transformation = fitLine(xs, ys);
   if (transformation) {
     lines.transformation = transformation;
