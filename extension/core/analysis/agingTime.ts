@@ -9,9 +9,14 @@
  *
  * Policy: without a VFT law (and Tg, m) no result.
  */
-import type { VftParameters } from './vft.js';
-import { vftFragility, vftLog10Tau, vftTg } from './vft.js';
+import { at, type Diagnostic } from '../diagnostics/diagnostic.js';
+import { messages } from '../diagnostics/messages.js';
+import type { ParsedBlock } from '../notebook/parseBlock.js';
 import { result, type ResultValue } from '../results/result.js';
+import { materialOf } from './blockLinks.js';
+import type { AnalysisContext } from './context.js';
+import { materialVft } from './materialAnalysis.js';
+import { vftFragility, vftLog10Tau, vftTg, type VftParameters } from './vft.js';
 
 export function equivalentAgingTime(tf: number, vft: VftParameters, tgRef?: number): ResultValue | undefined {
   const tg = tgRef ?? vftTg(vft);
@@ -25,4 +30,19 @@ export function equivalentAgingTime(tf: number, vft: VftParameters, tgRef?: numb
   const hi = Math.pow(10, Math.max(...logs));
   const value = Math.pow(10, (logs[0] + logs[1]) / 2);
   return result(value, 's', `bracket of VFT extrapolation τα(Tf) (${Math.pow(10, logVft).toExponential(1)} s) and constant slope at Tg, 2 + m(Tg/Tf − 1) (${Math.pow(10, logSlope).toExponential(1)} s); geometric mean; an extrapolation`, undefined, [lo, hi]);
+}
+
+/** Adds `equivalent_aging_time` for a block's fictive temperature, from its material's VFT law. */
+export function addAging(block: ParsedBlock, ctx: AnalysisContext, tf: number, results: Record<string, ResultValue>, diagnostics: Diagnostic[]): void {
+  const material = materialOf(block, ctx);
+  const vft = material ? materialVft(material, ctx) : null;
+  if (!vft) return;
+  const tg = material?.quantities.get('/tg')?.value;
+  // Only a glass well below Tg has an aging time worth estimating.
+  if (tg !== undefined && tf > tg - 5) return;
+  const aging = equivalentAgingTime(tf, vft.p, tg);
+  if (aging) {
+    results.equivalent_aging_time = aging;
+    diagnostics.push(at(messages.agingExtrapolated(), block.header.kindSpan));
+  }
 }

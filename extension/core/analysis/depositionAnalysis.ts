@@ -13,6 +13,7 @@ import { messages } from '../diagnostics/messages.js';
 import type { ParsedBlock } from '../notebook/parseBlock.js';
 import { result, type ResultValue } from '../results/result.js';
 import type { Analysis, AnalysisContext } from './context.js';
+import { materialOf } from './blockLinks.js';
 import { statedTg } from './materialAnalysis.js';
 
 const TORR = 133.322;
@@ -23,7 +24,7 @@ export function analyzeDeposition(block: ParsedBlock, ctx: AnalysisContext): Ana
   const results: Record<string, ResultValue> = {};
   const tsub = block.quantities.get('/substrate_temperature');
   const materialId = block.metadata.data.material;
-  const material = typeof materialId === 'string' ? ctx.lookup(materialId, 'material') : undefined;
+  const material = materialOf(block, ctx);
   const tg = material ? statedTg(material) : null;
 
   if (tsub && material && !tg) diagnostics.push(at(messages.tgReferenceUnknown(String(materialId)), block.spanOf('/material')));

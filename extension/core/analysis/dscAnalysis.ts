@@ -20,12 +20,12 @@
 import { at, type Diagnostic } from '../diagnostics/diagnostic.js';
 import { messages } from '../diagnostics/messages.js';
 import type { ParsedBlock } from '../notebook/parseBlock.js';
-import { fitLine, predict, type LineFit } from '../numeric/lineFit.js';
+import { fitLine, fitLineWhere, predict, type LineFit } from '../numeric/lineFit.js';
 import { result, type ResultValue } from '../results/result.js';
 import { linePoints, thinIndices } from '../charts/thin.js';
 import type { Analysis, AnalysisContext, FigureData } from './context.js';
-import { equivalentAgingTime } from './agingTime.js';
-import { materialVft } from './materialAnalysis.js';
+import { addAging } from './agingTime.js';
+import { metadataWindow } from './blockLinks.js';
 
 export interface DscCurve {
   readonly T: number[];
@@ -56,21 +56,13 @@ export function dscCurve(block: ParsedBlock): DscCurve | { error: 'columns' | 'm
 }
 
 function window(block: ParsedBlock, name: string, fallback: [number, number]): [number, number] {
-  const a = block.quantities.get(`/windows/${name}/0`)?.value;
-  const b = block.quantities.get(`/windows/${name}/1`)?.value;
-  return a !== undefined && b !== undefined ? [Math.min(a, b), Math.max(a, b)] : fallback;
+  return metadataWindow(block, name) ?? fallback;
 }
 
+/** A baseline over a window; at least 3 points. */
 function fitRange(c: DscCurve, w: [number, number]): LineFit | null {
-  const x: number[] = [];
-  const y: number[] = [];
-  c.T.forEach((t, i) => {
-    if (t >= w[0] && t <= w[1]) {
-      x.push(t);
-      y.push(c.cp[i]);
-    }
-  });
-  return x.length >= 3 ? fitLine(x, y) : null;
+  const f = fitLineWhere(c.T, c.cp, (i) => c.T[i] >= w[0] && c.T[i] <= w[1]);
+  return f && f.n >= 3 ? f : null;
 }
 
 /** Trapezoid integral of f over [a, b] on the curve's points (linear interpolation at the ends). */
@@ -262,22 +254,4 @@ function dscFigure(c: DscCurve, glass: LineFit, liquid: LineFit, tangent: { c: n
       ...(tf !== undefined ? [{ label: `Tf ${tf.toFixed(1)} K`, x: tf }] : []),
     ],
   };
-}
-
-/** Adds `equivalent_aging_time` for a fictive temperature, using the film's material. */
-export function addAging(block: ParsedBlock, ctx: AnalysisContext, tf: number, results: Record<string, ResultValue>, diagnostics: Diagnostic[]): void {
-  const filmId = block.metadata.data.film;
-  const film = typeof filmId === 'string' ? ctx.lookup(filmId, 'deposition') : undefined;
-  const mId = film?.metadata.data.material ?? block.metadata.data.material;
-  const material = typeof mId === 'string' ? ctx.lookup(mId, 'material') : undefined;
-  const vft = material ? materialVft(material, ctx) : null;
-  if (!vft) return;
-  const tg = material?.quantities.get('/tg')?.value;
-  // Only a glass well below Tg has an aging time worth estimating.
-  if (tg !== undefined && tf > tg - 5) return;
-  const aging = equivalentAgingTime(tf, vft.p, tg);
-  if (aging) {
-    results.equivalent_aging_time = aging;
-    diagnostics.push(at(messages.agingExtrapolated(), block.header.kindSpan));
-  }
 }

@@ -15,10 +15,12 @@
 import { at, type Diagnostic } from '../diagnostics/diagnostic.js';
 import { messages } from '../diagnostics/messages.js';
 import type { ParsedBlock } from '../notebook/parseBlock.js';
-import { fitThreeSegments, type ThreeSegmentFit } from '../numeric/threeSegmentFit.js';
+import { firstAbruptDrop } from '../numeric/abruptDrop.js';
+import { fitThreeSegments, threeSegmentValue, type ThreeSegmentFit } from '../numeric/threeSegmentFit.js';
 import { result, type ResultValue } from '../results/result.js';
 import { thinIndices } from '../charts/thin.js';
 import type { Analysis, AnalysisContext, FigureData } from './context.js';
+import { materialOf } from './blockLinks.js';
 import { materialVft } from './materialAnalysis.js';
 import { vftLog10Tau } from './vft.js';
 
@@ -98,10 +100,8 @@ export function analyzeIsotherm(block: ParsedBlock, ctx: AnalysisContext): Analy
   results.front_velocity = result(v, 'nm/s', `h_VD/((t₂ − t₁)·${fronts}) with ${fronts} front${fronts === 2 ? 's' : ''}${bound}`, Number.isFinite(varDuration) ? (v * Math.sqrt(Math.max(0, varDuration))) / duration : undefined);
 
   // τα from the material's VFT law.
-  const filmId = block.metadata.data.film;
-  const film = typeof filmId === 'string' ? ctx.lookup(filmId, 'deposition') : undefined;
-  const materialId = film?.metadata.data.material;
-  const material = typeof materialId === 'string' ? ctx.lookup(materialId, 'material') : undefined;
+  const material = materialOf(block, ctx);
+  const materialId = material?.id;
   if (material && hold !== undefined) {
     const vft = materialVft(material, ctx);
     if (!vft) {
@@ -124,22 +124,15 @@ export function analyzeIsotherm(block: ParsedBlock, ctx: AnalysisContext): Analy
 /** Evaporation after the plateau, abrupt drops and a non-linear transformation (METHODS.md §4 flags). */
 function isothermChecks(block: ParsedBlock, t: Float64Array, h: Float64Array, fit: ThreeSegmentFit, lowerBound: boolean, diagnostics: Diagnostic[]): void {
   const n = t.length;
-  const model = (ti: number): number => fit.a + fit.b1 * ti + fit.b2 * Math.max(ti - fit.t1, 0) + fit.b3 * Math.max(ti - fit.t2, 0);
+  const model = (ti: number): number => threeSegmentValue(fit, ti);
   const rampSlope = fit.b1 + fit.b2;
   const finalSlope = rampSlope + fit.b3;
   if (!lowerBound && Math.sign(finalSlope) === -Math.sign(rampSlope) && Math.abs(finalSlope) > 0.02 * Math.abs(rampSlope)) {
     diagnostics.push(at(messages.isoEvaporation(), block.rowSpan(n - 1)));
   }
-  // An abrupt drop: a fall far beyond the typical point-to-point step.
-  const steps = Array.from({ length: n - 1 }, (_, i) => Math.abs(h[i + 1] - h[i])).sort((a, b) => a - b);
-  const typical = steps[Math.floor(steps.length / 2)] ?? 0;
-  for (let i = 1; i < n; i++) {
-    const drop = h[i - 1] - h[i];
-    if (drop > 10 * Math.max(typical, 1e-9 * Math.abs(h[i])) && drop > 3 * Math.abs(h[Math.min(n - 1, i + 1)] - h[i])) {
-      diagnostics.push(at(messages.isoAbruptDrop(drop), block.rowSpan(i)));
-      break;
-    }
-  }
+  // The fitted transformation is smooth, so a drop against the plateau steps is abrupt.
+  const drop = firstAbruptDrop(h, 1e-9 * Math.abs(h[0]));
+  if (drop.index >= 0) diagnostics.push(at(messages.isoAbruptDrop(drop.drop), block.rowSpan(drop.index)));
   // Residual autocorrelation over the transformation.
   let num = 0;
   let den = 0;
@@ -161,7 +154,7 @@ function isothermChecks(block: ParsedBlock, t: Float64Array, h: Float64Array, fi
 /** The transformed fraction x(t) = (h − h_VD)/(h_L − h_VD) with the fitted three segments. */
 function isothermFigure(t: Float64Array, h: Float64Array, fit: ThreeSegmentFit, hVd: number, hL: number, t0: number): FigureData {
   const x = (v: number): number => (v - hVd) / (hL - hVd);
-  const model = (ti: number): number => fit.a + fit.b1 * ti + fit.b2 * Math.max(ti - fit.t1, 0) + fit.b3 * Math.max(ti - fit.t2, 0);
+  const model = (ti: number): number => threeSegmentValue(fit, ti);
   const first = t[0];
   const last = t[t.length - 1];
   return {

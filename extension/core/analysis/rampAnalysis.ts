@@ -25,12 +25,14 @@ import { messages } from '../diagnostics/messages.js';
 import type { ParsedBlock } from '../notebook/parseBlock.js';
 import { t95 } from '../numeric/distributions.js';
 import { fitHinge } from '../numeric/hingeFit.js';
-import { fitLine, intersect, predict, predictVariance, type LineFit } from '../numeric/lineFit.js';
+import { firstAbruptDrop } from '../numeric/abruptDrop.js';
+import { fitLine, fitLineWhere, intersect, predict, predictVariance, type LineFit } from '../numeric/lineFit.js';
 import { result, type ResultValue } from '../results/result.js';
 import type { Span } from '../text/positions.js';
 import { linePoints, thinIndices } from '../charts/thin.js';
 import type { Analysis, AnalysisContext, FigureData, FigureSeries } from './context.js';
-import { addAging } from './dscAnalysis.js';
+import { addAging } from './agingTime.js';
+import { filmOf, materialOf, metadataWindow as window } from './blockLinks.js';
 import { statedTg } from './materialAnalysis.js';
 import { segmentScan, type Segment } from './segments.js';
 
@@ -46,23 +48,9 @@ function slice(c: Curve, s: Segment): Curve {
   return { T: c.T.subarray(s.start, s.end), h: c.h.subarray(s.start, s.end) };
 }
 
-function window(block: ParsedBlock, name: string): [number, number] | null {
-  const a = block.quantities.get(`/windows/${name}/0`);
-  const b = block.quantities.get(`/windows/${name}/1`);
-  if (!a || !b) return null;
-  return a.value <= b.value ? [a.value, b.value] : [b.value, a.value];
-}
-
+/** A line through the points whose temperature passes a test. */
 function fitWhere(c: Curve, keep: (T: number) => boolean): LineFit | null {
-  const x: number[] = [];
-  const y: number[] = [];
-  for (let i = 0; i < c.T.length; i++) {
-    if (keep(c.T[i])) {
-      x.push(c.T[i]);
-      y.push(c.h[i]);
-    }
-  }
-  return fitLine(x, y);
+  return fitLineWhere(c.T, c.h, (i) => keep(c.T[i]));
 }
 
 export interface RampLines {
@@ -259,20 +247,8 @@ function rampFigure(curve: Curve, lines: RampLines, results: Record<string, Resu
 
 /** Evaporation during holds and abrupt drops (METHODS.md §1 and §3 flags). */
 function scanChecks(block: ParsedBlock, c: Curve, time: Float64Array | null, segments: readonly Segment[], note: (m: Message, span: Span) => void): void {
-  // Point-to-point steps: an abrupt drop is a fall more than 10 times the typical step.
-  const n = c.h.length;
-  if (n >= 20) {
-    const steps: number[] = [];
-    for (let i = 1; i < n; i++) steps.push(Math.abs(c.h[i] - c.h[i - 1]));
-    const typical = [...steps].sort((a, b) => a - b)[Math.floor(steps.length / 2)];
-    for (let i = 1; i < n; i++) {
-      const drop = c.h[i - 1] - c.h[i];
-      if (typical > 0 && drop > 10 * typical && drop > 3 * Math.abs(c.h[Math.min(n - 1, i + 1)] - c.h[i])) {
-        note(messages.rampAbruptDrop(drop), block.rowSpan(i));
-        break;
-      }
-    }
-  }
+  const drop = firstAbruptDrop(c.h);
+  if (drop.index >= 0) note(messages.rampAbruptDrop(drop.drop), block.rowSpan(drop.index));
   if (!time) return;
   const tgRef = block.quantities.get('/reference_temperature')?.value;
   for (const s of segments) {
@@ -283,13 +259,6 @@ function scanChecks(block: ParsedBlock, c: Curve, time: Float64Array | null, seg
       note(messages.rampEvaporation(-f.slope * 60), block.rowSpan(s.start));
     }
   }
-}
-
-function materialOf(block: ParsedBlock, ctx: AnalysisContext): ParsedBlock | undefined {
-  const filmId = block.metadata.data.film;
-  const film = typeof filmId === 'string' ? ctx.lookup(filmId, 'deposition') : undefined;
-  const m = film?.metadata.data.material;
-  return typeof m === 'string' ? ctx.lookup(m, 'material') : undefined;
 }
 
 /** 5 K from Tg, shrunk when a side would keep fewer than 5 points. */
@@ -465,9 +434,7 @@ function firstHeating(
     return;
   }
   const explicit = block.quantities.get('/reference_temperature');
-  const filmId = block.metadata.data.film;
-  const film = typeof filmId === 'string' ? ctx.lookup(filmId, 'deposition') : undefined;
-  const tsub = film?.quantities.get('/substrate_temperature');
+  const tsub = filmOf(block, ctx)?.quantities.get('/substrate_temperature');
   const tref = explicit?.value ?? tsub?.value;
   if (tref === undefined) return;
   const hLc = predict(lc, tref);
@@ -475,5 +442,5 @@ function firstHeating(
   const ratio = hLc / hVd;
   const u = 100 * Math.abs(ratio) * Math.sqrt(predictVariance(lc, tref) / (hLc * hLc) + predictVariance(vd, tref) / (hVd * hVd));
   results.density_gain = result(100 * (ratio - 1), '%', `100·(h_LC/h_VD − 1) from the fitted lines at ${Number(tref.toPrecision(6))} K`, u);
-  results.reference_temperature = result(tref, 'K', explicit ? 'reference_temperature as written' : `substrate temperature of ${String(filmId)}`);
+  results.reference_temperature = result(tref, 'K', explicit ? 'reference_temperature as written' : `substrate temperature of ${String(block.metadata.data.film)}`);
 }

@@ -118,3 +118,8 @@ export function fitThreeSegments(tIn: ArrayLike<number>, hIn: ArrayLike<number>)
   // Undo the centring: h = a + b1·(t − tm) + … ⇒ intercept at t = 0 of the original clock.
   return { a: a - b1 * tmean, b1, b2, b3, t1: t1 + tmean, t2: t2 + tmean, sse: f.sse, sigma: Math.sqrt(sigma2), covariance, pointsAfter };
 }
+
+/** The fitted model at time t. */
+export function threeSegmentValue(f: ThreeSegmentFit, t: number): number {
+  return f.a + f.b1 * t + f.b2 * Math.max(t - f.t1, 0) + f.b3 * Math.max(t - f.t2, 0);
+}
