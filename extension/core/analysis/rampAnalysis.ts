@@ -69,6 +69,8 @@ interface RampChoices {
   readonly vdTrim?: number;
   /** Leave out this many kelvin at both ends of the cooling segment. */
   readonly coolTrim?: number;
+  /** Only the figures are wanted (a sensitivity variant): no scan checks, no chart. */
+  readonly figuresOnly?: boolean;
 }
 
 const VARIANTS: readonly RampChoices[] = [{ gap: 3 }, { gap: 8 }, { vdTrim: 5 }, { coolTrim: 5 }];
@@ -84,7 +86,7 @@ export function analyzeRamp(block: ParsedBlock, ctx: AnalysisContext): Analysis 
   if (names.length === 0) return nominal;
   const spread = new Map<string, number>();
   for (const choice of VARIANTS) {
-    const r = rampDetails(block, ctx, choice).analysis.results;
+    const r = rampDetails(block, ctx, { ...choice, figuresOnly: true }).analysis.results;
     for (const n of names) {
       const v = r[n]?.value;
       if (v !== undefined) spread.set(n, Math.max(spread.get(n) ?? 0, Math.abs(v - nominal.results[n].value)));
@@ -127,9 +129,9 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext, choices: R
     if (off?.measuredRate !== undefined) note(messages.rampRateMismatch(Math.abs(off.measuredRate), nominal), block.spanOf('/rate'));
   }
 
-  scanChecks(block, curve, time, segments, note);
+  if (!choices.figuresOnly) scanChecks(block, curve, time, segments, note);
   const stated = block.metadata.data.direction;
-  if (typeof stated === 'string' && table.rowCount >= 10) {
+  if (!choices.figuresOnly && typeof stated === 'string' && table.rowCount >= 10) {
     const has = (d: string): boolean => segments.some((s) => s.direction === d && s.end - s.start >= 5);
     const found = has('heating') && has('cooling') ? 'heating and cooling' : has('heating') ? 'heating only' : has('cooling') ? 'cooling only' : 'no temperature change';
     const ok = stated === 'cycle' ? has('heating') && has('cooling') : has(stated) && !has(stated === 'heating' ? 'cooling' : 'heating');
@@ -212,6 +214,7 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext, choices: R
     firstHeating(block, ctx, slice(curve, first), first, lines, results, note, choices.vdTrim ?? 0);
   }
   const quantity = hcol.role === 'volume' ? `V / (${hcol.unit})` : 'h / nm';
+  if (choices.figuresOnly) return { analysis: { results, diagnostics }, lines };
   return { analysis: { results, diagnostics, figure: rampFigure(curve, lines, results, quantity) }, lines };
 }
 
