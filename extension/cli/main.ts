@@ -10,7 +10,7 @@
  */
 import * as fs from 'node:fs';
 import * as path from 'node:path';
-import { Notebook, formatDiagnosticLine, summarise, toJsonReport, type JsonReport, type NotebookReport } from '../core/index.js';
+import { Notebook, countDiagnostics, formatDiagnosticLine, summarise, toJsonReport, type JsonReport, type NotebookReport } from '../core/index.js';
 import { FileHost, markdownFiles } from './fileHost.js';
 import { progressBar, type Progress } from './progress.js';
 import { writeReport } from './report.js';
@@ -106,6 +106,16 @@ function runs(paths: readonly string[], cwd: string, progress: Progress | null =
   return [...byRoot.entries()].map(([root, only]) => loadRoot(root, only, progress));
 }
 
+function totals(all: readonly RootRun[]): { error: number; warning: number } {
+  const sum = { error: 0, warning: 0 };
+  for (const r of all) {
+    const c = countDiagnostics(r.report);
+    sum.error += c.error;
+    sum.warning += c.warning;
+  }
+  return sum;
+}
+
 function displayPath(root: string, rel: string, cwd: string): string {
   const shown = path.relative(cwd, path.join(root, ...rel.split('/')));
   return shown.split(path.sep).join('/');
@@ -157,8 +167,7 @@ async function dispatch(argv: readonly string[], io: CliIo): Promise<number> {
   if (command === 'analyze' && !flags.has('--json')) throw new UsageError('analyze writes JSON: add --json');
 
   const all = runs(paths, io.cwd, null, root);
-  let errors = 0;
-  let warnings = 0;
+  const { error: errors, warning: warnings } = totals(all);
   const json: JsonReport = { files: [] };
   for (const run of all) {
     const j = toJsonReport(run.report);
@@ -167,8 +176,6 @@ async function dispatch(argv: readonly string[], io: CliIo): Promise<number> {
       const shown = displayPath(run.root, f.path, io.cwd);
       const diags = [...f.diagnostics, ...f.blocks.flatMap((b) => b.diagnostics)].sort((a, b) => a.line - b.line || a.column - b.column);
       for (const d of diags) {
-        if (d.severity === 'error') errors++;
-        else if (d.severity === 'warning') warnings++;
         if (command === 'check' && (!flags.has('--quiet') || d.severity === 'error')) io.out(formatDiagnosticLine(shown, d) + '\n');
       }
     }
@@ -199,6 +206,5 @@ async function report(args: string[], io: CliIo, root: string | undefined): Prom
   const all = runs(args, io.cwd, progress, root);
   const written = await writeReport(all, { output: path.resolve(io.cwd, output), csv: csv ? path.resolve(io.cwd, csv) : undefined, png: png ? path.resolve(io.cwd, png) : undefined, title: args.length === 1 ? `Vitrine report: ${path.basename(path.resolve(io.cwd, args[0]))}` : 'Vitrine report' });
   for (const line of written) io.out(line + '\n');
-  const errors = all.reduce((n, r) => n + r.report.files.reduce((k, f) => k + f.blocks.reduce((m, b) => m + b.diagnostics.filter((d) => d.severity === 'error').length, 0), 0), 0);
-  return errors > 0 ? 1 : 0;
+  return totals(all).error > 0 ? 1 : 0;
 }

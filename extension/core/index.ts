@@ -3,6 +3,7 @@ export { Notebook, type BlockReport, type FileReport, type NotebookReport, type 
 export { InMemoryHost, type NotebookHost, type DataFileRead } from './host.js';
 export { toJsonReport, formatDiagnosticLine, type JsonReport, type JsonDiagnostic } from './results/reportJson.js';
 export { summarise, type FilmSummary } from './results/summary.js';
+export { countDiagnostics, type SeverityCounts } from './results/counts.js';
 export type { Diagnostic, Severity, SeverityOverrides } from './diagnostics/diagnostic.js';
 export type { ResultValue, Results } from './results/result.js';
 export { scanFencedBlocks, type FencedBlock } from './scan/fenceScanner.js';

@@ -1,15 +1,9 @@
 import assert from 'node:assert/strict';
 import { spawnSync } from 'node:child_process';
 import * as path from 'node:path';
-import { runCli } from '../../extension/cli/main.js';
+import { run } from '../support/runCli.js';
 import { REPO } from '../support/loadNotebook.js';
 
-async function run(args: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const code = await runCli(args, { out: (t) => (out += t), err: (t) => (err += t), cwd: REPO });
-  return { code, out, err };
-}
 
 describe('vitrine CLI', () => {
   it('check on the demo: warnings only, exit 0, and a summary table', async () => {

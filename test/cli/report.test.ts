@@ -2,17 +2,10 @@ import assert from 'node:assert/strict';
 import * as fs from 'node:fs';
 import * as os from 'node:os';
 import * as path from 'node:path';
-import { runCli } from '../../extension/cli/main.js';
+import { run } from '../support/runCli.js';
 import { progressBar } from '../../extension/cli/progress.js';
 import { csvField } from '../../extension/core/report/escape.js';
-import { REPO } from '../support/loadNotebook.js';
 
-async function run(args: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const code = await runCli(args, { out: (t) => (out += t), err: (t) => (err += t), cwd: REPO });
-  return { code, out, err };
-}
 
 describe('vitrine report', function () {
   this.timeout(120000);

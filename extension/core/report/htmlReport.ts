@@ -17,7 +17,8 @@ import type { BlockReport, NotebookReport } from '../notebook/notebook.js';
 import type { FilmSummary } from '../results/summary.js';
 import type { ResultValue } from '../results/result.js';
 import { hashText } from '../text/hash.js';
-import { toOneBased, visibleSpan } from '../text/positions.js';
+import { countDiagnostics } from '../results/counts.js';
+import { jsonDiagnostic } from '../results/reportJson.js';
 import { escapeHtml } from './escape.js';
 
 export interface ReportInput {
@@ -73,7 +74,7 @@ function resultsTable(results: Readonly<Record<string, ResultValue>>): string {
 function blockHtml(block: BlockReport, file: NotebookReport['files'][number], svg: string | undefined): string {
   const diags = block.diagnostics
     .map((d) => {
-      const r = toOneBased(file.lines.rangeOf(visibleSpan(d.span, file.text.length)));
+      const r = jsonDiagnostic(d, file.lines);
       return `<li class="${escapeHtml(d.severity)}"><span class="sev">${escapeHtml(d.severity)}</span> line ${r.line}: ${escapeHtml(d.message)} <code class="code">${escapeHtml(d.code)}</code></li>`;
     })
     .join('');
@@ -146,7 +147,7 @@ export function buildHtmlReport(input: ReportInput): string {
     .join('\n');
   const maps = input.maps.map((m) => `<figure class="map" id="map-${escapeHtml(m.name)}">${m.svg}</figure>`).join('');
   const blockCount = input.report.files.reduce((n, f) => n + f.blocks.length, 0);
-  const errors = input.report.files.reduce((n, f) => n + f.blocks.reduce((k, b) => k + b.diagnostics.filter((d) => d.severity === 'error').length, 0), 0);
+  const errors = countDiagnostics(input.report).error;
   return `<!doctype html>
 <html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">
 <meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; img-src data:">
