@@ -65,8 +65,6 @@ export interface ParsedBlock {
   spanOf(pointer: string, atKey?: boolean): Span;
   /** Relative span of a table row (by row index into the table's kept rows). */
   rowSpan(row: number): Span;
-  /** Relative span of a header cell of a column. */
-  columnSpan(role: string): Span;
 }
 
 const fieldCache = new Map<BlockKind, QuantityField[]>();
@@ -290,12 +288,6 @@ export function parseBlock(input: ParseInput, host: NotebookHost, maxDataFileByt
     if (!table || row < 0 || row >= table.rowCount) return headerSpan;
     return rowLineToDoc(table.rowLines[row]);
   };
-  const columnSpan = (role: string): Span => {
-    const col = table?.columns.find((c) => c.role === role);
-    if (!col || tableOrigin?.source !== 'inline') return tableOrigin?.source === 'file' ? spanOf('/data') : headerSpan;
-    const line = rowLineToDoc(col.headerLine);
-    return { start: Math.min(line.start + col.headerStart, line.end), end: Math.min(line.start + col.headerEnd, line.end) };
-  };
 
   const key = hashText(`${blockTextKey(input.file, input.source)}\u0000${tableOrigin?.fileHash ?? ''}`);
   return {
@@ -313,6 +305,5 @@ export function parseBlock(input: ParseInput, host: NotebookHost, maxDataFileByt
     diagnostics,
     spanOf,
     rowSpan,
-    columnSpan,
   };
 }

@@ -148,7 +148,3 @@ function scaleFactor(resolved: ResolvedUnit, target: string): number {
   return f;
 }
 
-/** Does the written unit carry a Celsius or Fahrenheit offset (so that a ratio would be wrong)? */
-export function isOffsetTemperature(resolved: ResolvedUnit): boolean {
-  return resolved.absoluteTemperature;
-}

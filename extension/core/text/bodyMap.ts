@@ -48,8 +48,4 @@ export class BodyMap {
     return line ? { start: line.start, end: line.end } : { start: this.fallback, end: this.fallback };
   }
 
-  /** Body offset where a body line starts. */
-  lineBodyStart(index: number): number {
-    return this.starts[index] ?? 0;
-  }
 }
