@@ -75,33 +75,22 @@ write('D-03-cycle.tsv', 't (s)\tT (K)\th (nm)', cycle({ seed: 3, tsub: 296, tg: 
   writeFileSync(`${dir}/quillite-dielectric.txt`, text);
 }
 
-// Calorimetry of an as-deposited film: heat capacity with a delayed, overshooting step.
-{
-  const n = rng(31);
+// Calorimetry: heat capacity with a logistic step and a Gaussian overshoot on linear baselines.
+function dscScan(file, { seed, step, width, peak, peakAt, peakWidth }) {
+  const n = rng(seed);
   const rows = [];
   for (let T = 290; T <= 360; T += 0.5) {
     const cpg = 1.21 + 0.0031 * (T - 300);
     const cpl = 1.63 + 0.0018 * (T - 300);
-    const s = 1 / (1 + Math.exp(-(T - 336) / 1.3));
-    const peak = 3.7 * Math.exp(-0.5 * ((T - 337.5) / 1.6) ** 2);
-    rows.push([T, cpg + (cpl - cpg) * s + peak + 0.003 * n()]);
+    const s = 1 / (1 + Math.exp(-(T - step) / width));
+    const overshoot = peak * Math.exp(-0.5 * ((T - peakAt) / peakWidth) ** 2);
+    rows.push([T, cpg + (cpl - cpg) * s + overshoot + 0.003 * n()]);
   }
-  write('D-01-dsc.csv', 'T/K, Cp/(J g^-1 K^-1)', rows, ', ', [1, 4]);
+  write(file, 'T/K, Cp/(J g^-1 K^-1)', rows, ', ', [1, 4]);
 }
 
-
-// The second heating of the same pan after cooling at 10 K/min: the liquid-cooled reference,
-// with its step at Tg and a small overshoot.
-{
-  const n = rng(32);
-  const rows = [];
-  for (let T = 290; T <= 360; T += 0.5) {
-    const cpg = 1.21 + 0.0031 * (T - 300);
-    const cpl = 1.63 + 0.0018 * (T - 300);
-    const s = 1 / (1 + Math.exp(-(T - 319) / 1.6));
-    const peak = 0.12 * Math.exp(-0.5 * ((T - 321) / 1.5) ** 2);
-    rows.push([T, cpg + (cpl - cpg) * s + peak + 0.003 * n()]);
-  }
-  write('D-01-dsc-second.csv', 'T/K, Cp/(J g^-1 K^-1)', rows, ', ', [1, 4]);
-}
+// The as-deposited film: a delayed step with a large overshoot.
+dscScan('D-01-dsc.csv', { seed: 31, step: 336, width: 1.3, peak: 3.7, peakAt: 337.5, peakWidth: 1.6 });
+// The second heating of the same pan after cooling at 10 K/min: the liquid-cooled reference.
+dscScan('D-01-dsc-second.csv', { seed: 32, step: 319, width: 1.6, peak: 0.12, peakAt: 321, peakWidth: 1.5 });
 console.log('demo data written to', dir);

@@ -47,5 +47,4 @@ export class BodyMap {
     const line = this.lines[Math.max(0, Math.min(index, this.lines.length - 1))];
     return line ? { start: line.start, end: line.end } : { start: this.fallback, end: this.fallback };
   }
-
 }
