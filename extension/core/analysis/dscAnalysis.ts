@@ -242,7 +242,7 @@ function dscFigure(c: DscCurve, glass: LineFit, liquid: LineFit, tangent: { c: n
     xTitle: 'T / K',
     yTitle: 'Cp / (J g⁻¹ K⁻¹)',
     series: [
-      { name: 'excess over the glass baseline', role: 'area', points: idx.filter((i) => c.T[i] >= t1 && c.T[i] <= t2).map((i) => [c.T[i], c.cp[i], predict(glass, c.T[i])]) },
+      { name: 'excess area', role: 'area', points: idx.filter((i) => c.T[i] >= t1 && c.T[i] <= t2).map((i) => [c.T[i], c.cp[i], predict(glass, c.T[i])]) },
       { name: 'data', role: 'data', points: idx.map((i) => [c.T[i], c.cp[i]]) },
       { name: 'glass baseline', role: 'baseline', points: linePoints(glass, lo, hi) },
       { name: 'liquid baseline', role: 'baseline', points: linePoints(liquid, lo, hi) },

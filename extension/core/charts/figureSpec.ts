@@ -16,7 +16,7 @@ export function figureSpec(title: string, figure: FigureData, theme: Theme = 'li
   }
   const names = [...new Set(figure.series.map((s) => s.name))];
   const dataPoints = figure.series.filter((s) => s.role === 'data').reduce((n, s) => n + s.points.length, 0);
-  const color = { field: 'series', type: 'nominal', title: null, scale: { domain: names }, legend: { orient: 'bottom' } };
+  const color = { field: 'series', type: 'nominal', title: null, scale: { domain: names }, legend: { orient: 'bottom', labelLimit: 240 } };
   const x = { field: 'x', type: 'quantitative', title: figure.xTitle, scale: { zero: false, nice: false, padding: 6 } };
   const y = { field: 'y', type: 'quantitative', title: figure.yTitle, scale: { zero: false, padding: 6 } };
   const layers: VegaLiteSpec[] = [
