@@ -11,7 +11,7 @@
 import * as fs from 'node:fs';
 import * as path from 'node:path';
 import { Notebook, countDiagnostics, formatDiagnosticLine, summarise, toJsonReport, type JsonReport, type NotebookReport } from '../core/index.js';
-import { FileHost, markdownFiles } from './fileHost.js';
+import { FileHost, markdownFiles } from '../node/fileHost.js';
 import { progressBar, type Progress } from './progress.js';
 import { writeReport } from './report.js';
 import { summaryTable } from './summaryTable.js';

@@ -2,7 +2,7 @@
 import * as fs from 'node:fs';
 import * as path from 'node:path';
 import { Notebook, type NotebookOptions } from '../../extension/core/index.js';
-import { FileHost, markdownFiles } from '../../extension/cli/fileHost.js';
+import { FileHost, markdownFiles } from '../../extension/node/fileHost.js';
 
 export const REPO = path.resolve(import.meta.dirname, '..', '..');
 

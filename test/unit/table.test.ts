@@ -1,6 +1,6 @@
 import assert from 'node:assert/strict';
 import { parseTable, readHeader } from '../../extension/core/parse/table.js';
-import { messages } from '../../extension/core/diagnostics/messages.js';
+import { messages } from '../../extension/core/model/messages.js';
 
 describe('parseTable', () => {
   it('reads the three header forms', () => {

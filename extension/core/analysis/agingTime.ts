@@ -9,10 +9,10 @@
  *
  * Policy: without a VFT law (and Tg, m) no result.
  */
-import { at, type Diagnostic } from '../diagnostics/diagnostic.js';
-import { messages } from '../diagnostics/messages.js';
-import type { ParsedBlock } from '../notebook/parseBlock.js';
-import { result, type ResultValue } from '../results/result.js';
+import { at, type Diagnostic } from '../model/diagnostic.js';
+import { messages } from '../model/messages.js';
+import type { ParsedBlock } from '../block/parseBlock.js';
+import { result, type ResultValue } from '../model/result.js';
 import { materialOf } from './blockLinks.js';
 import type { AnalysisContext } from './context.js';
 import { materialVft } from './materialAnalysis.js';

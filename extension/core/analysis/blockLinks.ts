@@ -2,7 +2,7 @@
  * What analyses read from their own metadata and from the blocks they name: the film a block is
  * about, its material, and temperature windows. One place, so every kind follows the same links.
  */
-import type { ParsedBlock } from '../notebook/parseBlock.js';
+import type { ParsedBlock } from '../block/parseBlock.js';
 import type { AnalysisContext } from './context.js';
 
 /** The deposition named by `film:`, if it exists. */

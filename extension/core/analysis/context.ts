@@ -2,9 +2,11 @@
  * What an analysis sees: its own parsed block and the blocks it refers to, resolved through the
  * notebook index. Analyses return results and diagnostics with spans relative to their block.
  */
-import type { Diagnostic } from '../diagnostics/diagnostic.js';
-import type { ParsedBlock } from '../notebook/parseBlock.js';
-import type { Results } from '../results/result.js';
+import type { Diagnostic } from '../model/diagnostic.js';
+import type { ParsedBlock } from '../block/parseBlock.js';
+import type { FigureData } from '../model/figure.js';
+import type { Results } from '../model/result.js';
+
 
 export interface AnalysisContext {
   /** The block with this id, if it exists and has the expected kind. */
@@ -15,25 +17,6 @@ export interface AnalysisContext {
   referrers(kind: ParsedBlock['kind'], key: string, id: string): readonly ParsedBlock[];
 }
 
-/** What a chart of a block shows, in the units of the results: data, fitted lines, markers. */
-export interface FigureSeries {
-  readonly name: string;
-  /** 'data' points, a fitted 'line', a 'baseline' or 'tangent' construction, an 'area' (x, y, y2). */
-  readonly role: 'data' | 'line' | 'baseline' | 'tangent' | 'area';
-  readonly points: ReadonlyArray<readonly number[]>;
-}
-
-export interface FigureMarker {
-  readonly label: string;
-  readonly x: number;
-}
-
-export interface FigureData {
-  readonly xTitle: string;
-  readonly yTitle: string;
-  readonly series: readonly FigureSeries[];
-  readonly markers: readonly FigureMarker[];
-}
 
 export interface Analysis {
   readonly results: Results;

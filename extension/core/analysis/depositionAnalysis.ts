@@ -8,10 +8,10 @@
  * Policy: a missing material or Tg gives no ratio (and a warning); uncertainties combine the
  * written "±" of Tsub and Tg in quadrature of relative errors.
  */
-import { at, type Diagnostic } from '../diagnostics/diagnostic.js';
-import { messages } from '../diagnostics/messages.js';
-import type { ParsedBlock } from '../notebook/parseBlock.js';
-import { result, type ResultValue } from '../results/result.js';
+import { at, type Diagnostic } from '../model/diagnostic.js';
+import { messages } from '../model/messages.js';
+import type { ParsedBlock } from '../block/parseBlock.js';
+import { result, type ResultValue } from '../model/result.js';
 import type { Analysis, AnalysisContext } from './context.js';
 import { materialOf } from './blockLinks.js';
 import { statedTg } from './materialAnalysis.js';

@@ -17,13 +17,14 @@
  * Policy: missing columns, mass or windows give diagnostics; a scan without a step gives no
  * transition results.
  */
-import { at, type Diagnostic } from '../diagnostics/diagnostic.js';
-import { messages } from '../diagnostics/messages.js';
-import type { ParsedBlock } from '../notebook/parseBlock.js';
+import { at, type Diagnostic } from '../model/diagnostic.js';
+import { messages } from '../model/messages.js';
+import type { ParsedBlock } from '../block/parseBlock.js';
 import { fitLine, fitLineWhere, predict, type LineFit } from '../numeric/lineFit.js';
-import { result, type ResultValue } from '../results/result.js';
-import { linePoints, thinIndices } from '../charts/thin.js';
-import type { Analysis, AnalysisContext, FigureData } from './context.js';
+import { result, type ResultValue } from '../model/result.js';
+import { linePoints, thinIndices } from '../numeric/thin.js';
+import type { Analysis, AnalysisContext } from './context.js';
+import type { FigureData } from '../model/figure.js';
 import { addAging } from './agingTime.js';
 import { metadataWindow } from './blockLinks.js';
 

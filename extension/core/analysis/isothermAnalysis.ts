@@ -12,14 +12,15 @@
  * Policy: no final plateau gives the values as lower bounds with a warning; a material without
  * VFT parameters or relaxation data gives no τα.
  */
-import { at, type Diagnostic } from '../diagnostics/diagnostic.js';
-import { messages } from '../diagnostics/messages.js';
-import type { ParsedBlock } from '../notebook/parseBlock.js';
+import { at, type Diagnostic } from '../model/diagnostic.js';
+import { messages } from '../model/messages.js';
+import type { ParsedBlock } from '../block/parseBlock.js';
 import { firstAbruptDrop } from '../numeric/abruptDrop.js';
 import { fitThreeSegments, threeSegmentValue, type ThreeSegmentFit } from '../numeric/threeSegmentFit.js';
-import { result, type ResultValue } from '../results/result.js';
-import { thinIndices } from '../charts/thin.js';
-import type { Analysis, AnalysisContext, FigureData } from './context.js';
+import { result, type ResultValue } from '../model/result.js';
+import { thinIndices } from '../numeric/thin.js';
+import type { Analysis, AnalysisContext } from './context.js';
+import type { FigureData } from '../model/figure.js';
 import { materialOf } from './blockLinks.js';
 import { materialVft } from './materialAnalysis.js';
 import { vftLog10Tau } from './vft.js';

@@ -5,10 +5,10 @@
  *
  * Policy: no `vft` map, no results; parameters outside the VFT domain give a diagnostic.
  */
-import { at, type Diagnostic } from '../diagnostics/diagnostic.js';
-import { messages } from '../diagnostics/messages.js';
-import type { ParsedBlock } from '../notebook/parseBlock.js';
-import { result, type ResultValue } from '../results/result.js';
+import { at, type Diagnostic } from '../model/diagnostic.js';
+import { messages } from '../model/messages.js';
+import type { ParsedBlock } from '../block/parseBlock.js';
+import { result, type ResultValue } from '../model/result.js';
 import type { Analysis, AnalysisContext } from './context.js';
 import { standardTg } from './standardTg.js';
 import { vftDerivedUncertainty, vftFragility, vftTg, type VftParameters } from './vft.js';

@@ -2,9 +2,9 @@
  * Plausibility of computed figures against published ranges (METHODS.md §§2–5, CHECKS.md §3).
  * These are warnings for the user to look again, never targets of a fit.
  */
-import { at, type Diagnostic } from '../diagnostics/diagnostic.js';
-import { formatNumber, messages } from '../diagnostics/messages.js';
-import type { Results } from '../results/result.js';
+import { at, type Diagnostic } from '../model/diagnostic.js';
+import { formatNumber, messages } from '../model/messages.js';
+import type { Results } from '../model/result.js';
 import type { Span } from '../text/positions.js';
 
 interface Range {

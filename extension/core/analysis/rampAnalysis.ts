@@ -20,17 +20,18 @@
  * Policy: any missing piece gives a diagnostic and no result for that figure; the other figures
  * are still computed. "No transition detected" is reported, not thrown.
  */
-import { at, type Diagnostic, type Message } from '../diagnostics/diagnostic.js';
-import { messages } from '../diagnostics/messages.js';
-import type { ParsedBlock } from '../notebook/parseBlock.js';
+import { at, type Diagnostic, type Message } from '../model/diagnostic.js';
+import { messages } from '../model/messages.js';
+import type { ParsedBlock } from '../block/parseBlock.js';
 import { t95 } from '../numeric/distributions.js';
 import { fitHinge } from '../numeric/hingeFit.js';
 import { firstAbruptDrop } from '../numeric/abruptDrop.js';
 import { fitLine, fitLineWhere, intersect, predict, predictVariance, type LineFit } from '../numeric/lineFit.js';
-import { result, type ResultValue } from '../results/result.js';
+import { result, type ResultValue } from '../model/result.js';
 import type { Span } from '../text/positions.js';
-import { linePoints, thinIndices } from '../charts/thin.js';
-import type { Analysis, AnalysisContext, FigureData, FigureSeries } from './context.js';
+import { linePoints, thinIndices } from '../numeric/thin.js';
+import type { Analysis, AnalysisContext } from './context.js';
+import type { FigureData, FigureSeries } from '../model/figure.js';
 import { addAging } from './agingTime.js';
 import { filmOf, materialOf, metadataWindow as window } from './blockLinks.js';
 import { statedTg } from './materialAnalysis.js';

@@ -7,12 +7,13 @@
  *
  * Policy: rows with τ ≤ 0 are reported and left out; the rest are fitted.
  */
-import { at, type Diagnostic } from '../diagnostics/diagnostic.js';
-import { messages } from '../diagnostics/messages.js';
-import type { ParsedBlock } from '../notebook/parseBlock.js';
+import { at, type Diagnostic } from '../model/diagnostic.js';
+import { messages } from '../model/messages.js';
+import type { ParsedBlock } from '../block/parseBlock.js';
 import { fitVft, type VftFit } from '../numeric/vftFit.js';
-import { result, type ResultValue } from '../results/result.js';
-import type { Analysis, AnalysisContext, FigureData } from './context.js';
+import { result, type ResultValue } from '../model/result.js';
+import type { Analysis, AnalysisContext } from './context.js';
+import type { FigureData } from '../model/figure.js';
 import { vftDerivedUncertainty, vftFragility, vftTg } from './vft.js';
 
 export interface RelaxationFit {

@@ -13,12 +13,12 @@
  *
  * Policy: no ramp with a Tg gives no result.
  */
-import { at, type Diagnostic } from '../diagnostics/diagnostic.js';
-import { messages } from '../diagnostics/messages.js';
-import type { ParsedBlock } from '../notebook/parseBlock.js';
+import { at, type Diagnostic } from '../model/diagnostic.js';
+import { messages } from '../model/messages.js';
+import type { ParsedBlock } from '../block/parseBlock.js';
 import { t95 } from '../numeric/distributions.js';
 import { fitLine } from '../numeric/lineFit.js';
-import { result, type ResultValue } from '../results/result.js';
+import { result, type ResultValue } from '../model/result.js';
 import type { AnalysisContext } from './context.js';
 
 export const REFERENCE_RATE = 10; // K/min

@@ -4,7 +4,7 @@
  * labelled vertical rule. Colours come from the colour-blind-safe palette by series name, so the
  * same name keeps its colour in every chart.
  */
-import type { FigureData } from '../analysis/context.js';
+import type { FigureData } from '../model/figure.js';
 import { themeConfig, type Theme } from './theme.js';
 
 export type VegaLiteSpec = Record<string, unknown>;

@@ -3,8 +3,8 @@
  * Tsub/Tg, one mark per film coloured by material; and Tg against log10 of the cooling rate per
  * material. Built from the summary rows and the ramps' results.
  */
-import type { NotebookReport } from '../notebook/notebook.js';
-import type { FilmSummary } from '../results/summary.js';
+import type { NotebookReport } from '../engine/notebook.js';
+import type { FilmSummary } from '../engine/summary.js';
 import type { VegaLiteSpec } from './figureSpec.js';
 import { themeConfig, type Theme } from './theme.js';
 

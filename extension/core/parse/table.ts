@@ -15,8 +15,8 @@
  * Policy: never throws. Positions are (0-based line index into the given lines, 0-based
  * character start and end within that line).
  */
-import { messages } from '../diagnostics/messages.js';
-import type { Message } from '../diagnostics/diagnostic.js';
+import { messages } from '../model/messages.js';
+import type { Message } from '../model/diagnostic.js';
 import { CANONICAL, hasDimension, lookupUnit, toCanonical, type Dimension } from './units.js';
 
 export type ColumnRole = 'time' | 'temperature' | 'thickness' | 'volume' | 'heat_capacity' | 'heat_flow' | 'specific_heat_flow' | 'tau' | 'log10_tau';

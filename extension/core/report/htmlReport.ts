@@ -12,13 +12,13 @@ import remarkParse from 'remark-parse';
 import remarkRehype from 'remark-rehype';
 import { unified } from 'unified';
 import type { Code, Root, RootContent } from 'mdast';
-import { formatNumber } from '../diagnostics/messages.js';
-import type { BlockReport, NotebookReport } from '../notebook/notebook.js';
-import type { FilmSummary } from '../results/summary.js';
-import type { ResultValue } from '../results/result.js';
+import { formatNumber } from '../model/messages.js';
+import type { BlockReport, NotebookReport } from '../engine/notebook.js';
+import type { FilmSummary } from '../engine/summary.js';
+import type { ResultValue } from '../model/result.js';
 import { hashText } from '../text/hash.js';
-import { countDiagnostics } from '../results/counts.js';
-import { jsonDiagnostic } from '../results/reportJson.js';
+import { countDiagnostics } from '../engine/counts.js';
+import { jsonDiagnostic } from '../engine/jsonReport.js';
 import { escapeHtml } from './escape.js';
 
 export interface ReportInput {

@@ -1,5 +1,5 @@
 /** `--csv`: one row per film with units in the header. */
-import type { FilmSummary } from '../results/summary.js';
+import type { FilmSummary } from '../engine/summary.js';
 import { csvField } from './escape.js';
 
 const COLUMNS: ReadonlyArray<[string, (r: FilmSummary) => string | number | undefined]> = [

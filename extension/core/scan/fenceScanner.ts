@@ -18,17 +18,11 @@
  * the document when it is never closed.
  */
 import { decodeInfoString } from './infoString.js';
+import type { BodyLine } from '../text/bodyMap.js';
 import type { Span } from '../text/positions.js';
 
 /** One line of a block's body as it maps back into the source. */
-export interface BodyLine {
-  /** Offset of the first source character of the content (after container prefixes). */
-  readonly start: number;
-  /** Offset of the end of the content, before the line break. */
-  readonly end: number;
-  /** Spaces that stand for a tab partly used by the prefix (0 in almost every document). */
-  readonly pad: number;
-}
+export type { BodyLine };
 
 export interface FencedBlock {
   /** From the first fence character to the end of the block (see the file comment). */

@@ -7,8 +7,8 @@
  */
 import * as ajv2020 from 'ajv/dist/2020.js';
 import type { ErrorObject, ValidateFunction } from 'ajv';
-import { messages } from '../diagnostics/messages.js';
-import type { Message } from '../diagnostics/diagnostic.js';
+import { messages } from '../model/messages.js';
+import type { Message } from '../model/diagnostic.js';
 import type { BlockKind } from '../scan/blockHeader.js';
 import { SCHEMAS, type JsonSchema } from './schemas.js';
 

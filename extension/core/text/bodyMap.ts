@@ -2,8 +2,17 @@
  * Maps offsets in a block's body text (its lines joined by `\n`, container prefixes removed)
  * back to offsets in the markdown document. Body offsets are 0-based; so are document offsets.
  */
-import type { BodyLine } from '../scan/fenceScanner.js';
 import type { Span } from './positions.js';
+
+/** One line of a fenced block's body, as the scanner found it. */
+export interface BodyLine {
+  /** Offset of the first source character of the content (after container prefixes). */
+  readonly start: number;
+  /** Offset of the end of the content, before the line break. */
+  readonly end: number;
+  /** Spaces that stand for a tab partly used by the prefix (0 in almost every document). */
+  readonly pad: number;
+}
 
 export class BodyMap {
   /** Body offset where each line starts. */

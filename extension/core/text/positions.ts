@@ -12,23 +12,9 @@
  * Line breaks are `\n`, `\r\n` or a lone `\r`, as in CommonMark.
  */
 
-/** Offsets, 0-based, end-exclusive. */
-export interface Span {
-  readonly start: number;
-  readonly end: number;
-}
+import type { Position, PositionRange, Span } from '../model/span.js';
 
-/** 0-based line and UTF-16 character, as in LSP. */
-export interface Position {
-  readonly line: number;
-  readonly character: number;
-}
-
-/** 0-based, end-exclusive positions. */
-export interface PositionRange {
-  readonly start: Position;
-  readonly end: Position;
-}
+export type { Position, PositionRange, Span };
 
 /** 1-based, end-exclusive line and column, for printed output. */
 export interface OneBasedRange {

@@ -7,8 +7,8 @@
  *
  * Policy: never throws; every problem becomes a diagnostic.
  */
-import { at, type Diagnostic, type Message, type RelatedLocation } from '../diagnostics/diagnostic.js';
-import { messages } from '../diagnostics/messages.js';
+import { at, type Diagnostic, type Message, type RelatedLocation } from '../model/diagnostic.js';
+import { messages } from '../model/messages.js';
 import { parseMetadata, valueAt, type Metadata } from '../parse/metadata.js';
 import { parseQuantity, type Quantity } from '../parse/quantity.js';
 import { parseTable, type Table } from '../parse/table.js';
@@ -22,7 +22,7 @@ import { BodyMap } from '../text/bodyMap.js';
 import { hashText } from '../text/hash.js';
 import { resolveNotebookPath } from '../text/notebookPath.js';
 import type { Span } from '../text/positions.js';
-import type { NotebookHost } from '../host.js';
+import type { NotebookHost } from '../model/host.js';
 
 /** Data files larger than this are refused with a diagnostic. */
 export const MAX_DATA_FILE_BYTES = 32 * 1024 * 1024;

@@ -1,6 +1,6 @@
 /** How many diagnostics of each severity a report holds, file-level ones included. */
-import type { Severity } from '../diagnostics/diagnostic.js';
-import type { NotebookReport } from '../notebook/notebook.js';
+import type { Severity } from '../model/diagnostic.js';
+import type { NotebookReport } from './notebook.js';
 
 export type SeverityCounts = Record<Severity, number>;
 

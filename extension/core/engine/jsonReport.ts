@@ -2,10 +2,10 @@
  * The results contract of `vitrine analyze --json` (DESIGN.md): files, blocks, results and
  * diagnostics with 1-based lines and columns.
  */
-import type { Diagnostic, RelatedLocation } from '../diagnostics/diagnostic.js';
-import type { NotebookReport } from '../notebook/notebook.js';
+import type { Diagnostic, RelatedLocation } from '../model/diagnostic.js';
+import type { NotebookReport } from './notebook.js';
 import { toOneBased, visibleSpan, type LineIndex } from '../text/positions.js';
-import type { ResultValue } from './result.js';
+import type { ResultValue } from '../model/result.js';
 
 export interface JsonDiagnostic {
   severity: string;

@@ -3,8 +3,8 @@
  * figures of merit found in the blocks that refer to it. Values are the computed results; a
  * figure that no block has produced yet is absent.
  */
-import type { NotebookReport } from '../notebook/notebook.js';
-import type { ResultValue } from './result.js';
+import type { NotebookReport } from './notebook.js';
+import type { ResultValue } from '../model/result.js';
 
 export interface FilmSummary {
   readonly film: string;

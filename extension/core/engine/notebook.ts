@@ -18,16 +18,17 @@
  */
 import { ANALYZERS } from '../analysis/analyzers.js';
 import { plausibilityWarnings } from '../analysis/plausibility.js';
-import type { Analysis, AnalysisContext, FigureData } from '../analysis/context.js';
-import { applyOverrides, at, type Diagnostic, type SeverityOverrides } from '../diagnostics/diagnostic.js';
-import { messages } from '../diagnostics/messages.js';
-import type { NotebookHost } from '../host.js';
-import type { Results } from '../results/result.js';
+import type { Analysis, AnalysisContext } from '../analysis/context.js';
+import type { FigureData } from '../model/figure.js';
+import { applyOverrides, at, type Diagnostic, type SeverityOverrides } from '../model/diagnostic.js';
+import { messages } from '../model/messages.js';
+import type { NotebookHost } from '../model/host.js';
+import type { Results } from '../model/result.js';
 import { readBlockHeader, type BlockKind } from '../scan/blockHeader.js';
 import { scanFencedBlocks } from '../scan/fenceScanner.js';
 import { hashParts } from '../text/hash.js';
 import { LineIndex, stripBom, type Span } from '../text/positions.js';
-import { blockTextKey, parseBlock, type ParsedBlock } from './parseBlock.js';
+import { blockTextKey, parseBlock, type ParsedBlock } from '../block/parseBlock.js';
 
 export interface BlockReport {
   readonly kind: BlockKind;
