@@ -1,6 +1,6 @@
 import assert from 'node:assert/strict';
 import fc from 'fast-check';
-import { InMemoryHost, Notebook, toJsonReport } from '../../extension/core/index.js';
+import { InMemoryHost, LineIndex, Notebook, toJsonReport } from '../../extension/core/index.js';
 
 // Notebooks built from realistic pieces, then mutated character by character: the core must
 // never throw, and every diagnostic must lie inside its document.
@@ -45,7 +45,7 @@ describe('the core on generated and mutated notebooks', () => {
           }
         }
         for (const f of json.files) {
-          const lineCount = report.files.find((r) => r.path === f.path)!.lines.lineCount;
+          const lineCount = new LineIndex(report.files.find((r) => r.path === f.path)!.text).lineCount;
           for (const d of f.blocks.flatMap((b) => b.diagnostics)) {
             assert.ok(d.line >= 1 && d.endLine <= lineCount && d.column >= 1, `${d.code} line ${d.line}`);
             assert.notEqual(d.code, 'internal.error', d.message);

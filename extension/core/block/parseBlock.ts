@@ -21,7 +21,7 @@ import { recommendedKeys, validateMetadata } from '../schema/validator.js';
 import { BodyMap } from '../text/bodyMap.js';
 import { hashText } from '../text/hash.js';
 import { resolveNotebookPath } from '../text/notebookPath.js';
-import type { Span } from '../text/positions.js';
+import { toOneBasedPoint, type Span } from '../text/positions.js';
 import type { NotebookHost } from '../model/host.js';
 
 /** Data files larger than this are refused with a diagnostic. */
@@ -134,6 +134,12 @@ export interface ParseInput {
 /** The cache key of a block before its data file is read. */
 export function blockTextKey(file: string, source: string): string {
   return hashText(`${file}\u0000${source}`);
+}
+
+/** `line:column` as people read it, from 0-based line and character. */
+function oneBasedPlace(line: number, character: number): string {
+  const p = toOneBasedPoint({ line, character });
+  return `${p.line}:${p.column}`;
 }
 
 export function parseBlock(input: ParseInput, host: NotebookHost, maxDataFileBytes = MAX_DATA_FILE_BYTES): ParsedBlock {
@@ -267,12 +273,12 @@ export function parseBlock(input: ParseInput, host: NotebookHost, maxDataFileByt
           if (first) {
             const related: RelatedLocation[] = table.problems.slice(0, 20).map((p) => ({
               path: resolved.path,
-              line: p.line + 1,
-              column: p.start + 1,
+              line: p.line,
+              character: p.start,
               message: p.message.message,
             }));
             push(
-              { ...first.message, message: `${resolved.path}:${first.line + 1}:${first.start + 1}: ${first.message.message}${table.problems.length > 1 ? ` (and ${table.problems.length - 1} more)` : ''}` },
+              { ...first.message, message: `${resolved.path}:${oneBasedPlace(first.line, first.start)}: ${first.message.message}${table.problems.length > 1 ? ` (and ${table.problems.length - 1} more)` : ''}` },
               valueSpan,
               related,
             );

@@ -49,8 +49,8 @@ export function stabilityMapSpecs(rows: readonly FilmSummary[], report: Notebook
   const tgPoints: Array<Record<string, unknown>> = [];
   for (const f of report.files) {
     for (const b of f.blocks) {
-      const film = b.parsed.metadata.data.film;
-      const q = b.parsed.quantities.get('/rate')?.value;
+      const film = b.metadata.film;
+      const q = b.quantities['/rate']?.value;
       if (b.kind !== 'ramp' || !b.results.tg || typeof film !== 'string' || !q) continue;
       tgPoints.push({ material: materialOfFilm.get(film) ?? '—', logq: Math.log10(q), tg: b.results.tg.value, ramp: b.id ?? '' });
     }

@@ -2,9 +2,9 @@
  * The results contract of `vitrine analyze --json` (DESIGN.md): files, blocks, results and
  * diagnostics with 1-based lines and columns.
  */
-import type { Diagnostic, RelatedLocation } from '../model/diagnostic.js';
+import type { Diagnostic } from '../model/diagnostic.js';
 import type { NotebookReport } from './notebook.js';
-import { toOneBased, visibleSpan, type LineIndex } from '../text/positions.js';
+import { LineIndex, toOneBased, toOneBasedPoint, visibleSpan } from '../text/positions.js';
 import type { ResultValue } from '../model/result.js';
 
 export interface JsonDiagnostic {
@@ -15,7 +15,7 @@ export interface JsonDiagnostic {
   column: number;
   endLine: number;
   endColumn: number;
-  related?: readonly RelatedLocation[];
+  related?: ReadonlyArray<{ path: string; line: number; column: number; message: string }>;
   fix?: { title: string; newText: string; line: number; column: number; endLine: number; endColumn: number };
 }
 
@@ -40,7 +40,7 @@ export interface JsonReport {
 export function jsonDiagnostic(d: Diagnostic, lines: LineIndex): JsonDiagnostic {
   const r = toOneBased(lines.rangeOf(visibleSpan(d.span, lines.text.length)));
   const out: JsonDiagnostic = { severity: d.severity, code: d.code, message: d.message, ...r };
-  if (d.related) out.related = d.related;
+  if (d.related) out.related = d.related.map((r) => ({ path: r.path, ...toOneBasedPoint({ line: r.line, character: r.character }), message: r.message }));
   if (d.fix) out.fix = { title: d.fix.title, newText: d.fix.newText, ...toOneBased(lines.rangeOf(d.fix.span)) };
   return out;
 }
@@ -54,17 +54,20 @@ function tidy(v: ResultValue): ResultValue {
 
 export function toJsonReport(report: NotebookReport, pathPrefix = ''): JsonReport {
   return {
-    files: report.files.map((f) => ({
-      path: pathPrefix + f.path,
-      blocks: f.blocks.map((b) => ({
-        kind: b.kind,
-        id: b.id,
-        line: f.lines.positionAt(b.span.start).line + 1,
-        results: Object.fromEntries(Object.entries(b.results).map(([k, v]) => [k, tidy(v)])),
-        diagnostics: b.diagnostics.map((d) => jsonDiagnostic(d, f.lines)),
-      })),
-      diagnostics: f.diagnostics.map((d) => jsonDiagnostic(d, f.lines)),
-    })),
+    files: report.files.map((f) => {
+      const lines = new LineIndex(f.text);
+      return {
+        path: pathPrefix + f.path,
+        blocks: f.blocks.map((b) => ({
+          kind: b.kind,
+          id: b.id,
+          line: toOneBasedPoint(lines.positionAt(b.span.start)).line,
+          results: Object.fromEntries(Object.entries(b.results).map(([k, v]) => [k, tidy(v)])),
+          diagnostics: b.diagnostics.map((d) => jsonDiagnostic(d, lines)),
+        })),
+        diagnostics: f.diagnostics.map((d) => jsonDiagnostic(d, lines)),
+      };
+    }),
   };
 }
 

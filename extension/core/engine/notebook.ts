@@ -19,41 +19,17 @@
 import { ANALYZERS } from '../analysis/analyzers.js';
 import { plausibilityWarnings } from '../analysis/plausibility.js';
 import type { Analysis, AnalysisContext } from '../analysis/context.js';
-import type { FigureData } from '../model/figure.js';
+import type { BlockReport, FileReport, NotebookReport } from '../model/report.js';
 import { applyOverrides, at, type Diagnostic, type SeverityOverrides } from '../model/diagnostic.js';
 import { messages } from '../model/messages.js';
 import type { NotebookHost } from '../model/host.js';
-import type { Results } from '../model/result.js';
 import { readBlockHeader, type BlockKind } from '../scan/blockHeader.js';
 import { scanFencedBlocks } from '../scan/fenceScanner.js';
 import { hashParts } from '../text/hash.js';
-import { LineIndex, stripBom, type Span } from '../text/positions.js';
+import { LineIndex, stripBom, toOneBasedPoint, type Span } from '../text/positions.js';
 import { blockTextKey, parseBlock, type ParsedBlock } from '../block/parseBlock.js';
 
-export interface BlockReport {
-  readonly kind: BlockKind;
-  readonly id: string | null;
-  /** Absolute span of the block in its file. */
-  readonly span: Span;
-  readonly results: Results;
-  readonly diagnostics: readonly Diagnostic[];
-  readonly parsed: ParsedBlock;
-  /** What the block's chart shows, when its analysis produced one. */
-  readonly figure?: FigureData;
-}
-
-export interface FileReport {
-  readonly path: string;
-  readonly text: string;
-  readonly lines: LineIndex;
-  readonly blocks: readonly BlockReport[];
-  /** Diagnostics that belong to no block. */
-  readonly diagnostics: readonly Diagnostic[];
-}
-
-export interface NotebookReport {
-  readonly files: readonly FileReport[];
-}
+export type { BlockReport, FileReport, NotebookReport };
 
 export interface NotebookOptions {
   readonly severity?: SeverityOverrides;
@@ -168,7 +144,6 @@ export class Notebook {
       files.push({
         path,
         text: entry.text,
-        lines: entry.lines,
         blocks,
         diagnostics: applyOverrides(entry.diagnostics, this.options.severity),
       });
@@ -304,7 +279,7 @@ class AnalysisRun {
     if (!list || list.length < 2 || (list[0].file === file && list[0].start === start)) return [];
     const first = list[0];
     const lines = this.files.get(first.file)?.lines;
-    const line = lines ? lines.positionAt(first.start).line + 1 : 1;
+    const line = toOneBasedPoint(lines ? lines.positionAt(first.start) : { line: 0, character: 0 }).line;
     return [at(messages.duplicateId(block.id, `${first.file}:${line}`), block.header.idSpan)];
   }
 
@@ -336,7 +311,8 @@ class AnalysisRun {
       span: { start: block.span.start + start, end: block.span.end + start },
       results: analysis.results,
       diagnostics: applyOverrides(absolute, severity),
-      parsed: block,
+      metadata: block.metadata.data,
+      quantities: Object.fromEntries(block.quantities),
       ...(analysis.figure ? { figure: analysis.figure } : {}),
     };
   }

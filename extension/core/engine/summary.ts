@@ -28,16 +28,16 @@ export function summarise(report: NotebookReport): FilmSummary[] {
   for (const file of report.files) {
     for (const b of file.blocks) {
       if (b.kind !== 'deposition' || b.id === null || byFilm.has(b.id)) continue;
-      const q = b.parsed.quantities;
-      const material = b.parsed.metadata.data.material;
+      const q = b.quantities;
+      const material = b.metadata.material;
       const row = {
         film: b.id,
         file: file.path,
         material: typeof material === 'string' ? material : null,
-        tsub: q.get('/substrate_temperature')?.value,
+        tsub: q['/substrate_temperature']?.value,
         tsubOverTg: b.results.tsub_over_tg,
-        rate: q.get('/rate')?.value,
-        thickness: q.get('/thickness')?.value ?? b.results.expected_thickness?.value,
+        rate: q['/rate']?.value,
+        thickness: q['/thickness']?.value ?? b.results.expected_thickness?.value,
       };
       rows.push(row);
       byFilm.set(b.id, row);
@@ -45,7 +45,7 @@ export function summarise(report: NotebookReport): FilmSummary[] {
   }
   for (const file of report.files) {
     for (const b of file.blocks) {
-      const film = b.parsed.metadata.data.film;
+      const film = b.metadata.film;
       const row = typeof film === 'string' ? byFilm.get(film) : undefined;
       if (!row) continue;
       const r = b.results;

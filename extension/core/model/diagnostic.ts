@@ -2,18 +2,19 @@
  * Diagnostics are data: a stable code, a severity the user can change, a message built in
  * `messages.ts`, and a span in the markdown document (0-based offsets, end-exclusive).
  */
-import type { Span } from '../text/positions.js';
+import type { Span } from './span.js';
 
 export type Severity = 'error' | 'warning' | 'info';
 
 /** When an editor should show it: while typing, or only once the file is saved. */
 export type DiagnosticPhase = 'typing' | 'save';
 
-/** Where else a diagnostic points, e.g. the cell of a data file. 1-based line and column. */
+/** Where else a diagnostic points, e.g. the cell of a data file: 0-based line and UTF-16 character. */
 export interface RelatedLocation {
+  /** Root-relative path of the file. */
   readonly path: string;
   readonly line: number;
-  readonly column: number;
+  readonly character: number;
   readonly message: string;
 }
 

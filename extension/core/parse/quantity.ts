@@ -5,19 +5,10 @@
  *
  * Policy: never throws; returns a reason when the text is not a quantity of the dimension.
  */
+import type { Quantity } from '../model/quantity.js';
 import { CANONICAL, hasDimension, lookupUnit, toCanonical, type Dimension } from './units.js';
 
-export interface Quantity {
-  /** Value in the canonical unit of the dimension. */
-  readonly value: number;
-  /** Standard uncertainty in the canonical unit, when written. */
-  readonly uncertainty?: number;
-  readonly unit: string;
-  /** The unit as the user wrote it; empty for a bare number. */
-  readonly writtenUnit: string;
-  /** Written in °C or °F. */
-  readonly offsetTemperature: boolean;
-}
+export type { Quantity };
 
 export type QuantityParse =
   | { readonly ok: true; readonly quantity: Quantity; readonly assumedUnit: boolean }

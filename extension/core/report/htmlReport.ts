@@ -17,6 +17,7 @@ import type { BlockReport, NotebookReport } from '../engine/notebook.js';
 import type { FilmSummary } from '../engine/summary.js';
 import type { ResultValue } from '../model/result.js';
 import { hashText } from '../text/hash.js';
+import { LineIndex, toOneBasedPoint } from '../text/positions.js';
 import { countDiagnostics } from '../engine/counts.js';
 import { jsonDiagnostic } from '../engine/jsonReport.js';
 import { escapeHtml } from './escape.js';
@@ -71,14 +72,14 @@ function resultsTable(results: Readonly<Record<string, ResultValue>>): string {
   return `<table class="results"><thead><tr><th>result</th><th>value</th><th>u</th><th>unit</th><th>method</th></tr></thead><tbody>${rows}</tbody></table>`;
 }
 
-function blockHtml(block: BlockReport, file: NotebookReport['files'][number], svg: string | undefined): string {
+function blockHtml(block: BlockReport, lines: LineIndex, svg: string | undefined): string {
   const diags = block.diagnostics
     .map((d) => {
-      const r = jsonDiagnostic(d, file.lines);
+      const r = jsonDiagnostic(d, lines);
       return `<li class="${escapeHtml(d.severity)}"><span class="sev">${escapeHtml(d.severity)}</span> line ${r.line}: ${escapeHtml(d.message)} <code class="code">${escapeHtml(d.code)}</code></li>`;
     })
     .join('');
-  const line = file.lines.positionAt(block.span.start).line + 1;
+  const line = toOneBasedPoint(lines.positionAt(block.span.start)).line;
   const title = `<h3><span class="kind">${escapeHtml(block.kind)}</span> ${escapeHtml(block.id ?? '(no id)')} <small>line ${line}</small></h3>`;
   const chart = svg ? `<div class="chart">${svg}</div>` : '';
   const side = `<div>${resultsTable(block.results)}${diags ? `<ul class="diagnostics">${diags}</ul>` : ''}</div>`;
@@ -102,6 +103,7 @@ function summaryHtml(rows: readonly FilmSummary[]): string {
 function fileHtml(file: NotebookReport['files'][number], charts: ReadonlyMap<BlockReport, string>): string {
   const nonce = hashText(file.text + file.path);
   const byStart = new Map(file.blocks.map((b) => [b.span.start, b]));
+  const lines = new LineIndex(file.text);
   const inserts = new Map<string, string>();
   const processor = unified().use(remarkParse);
   const tree = processor.parse(file.text) as Root;
@@ -113,7 +115,7 @@ function fileHtml(file: NotebookReport['files'][number], charts: ReadonlyMap<Blo
         const block = start !== undefined ? byStart.get(start) : undefined;
         if (block) {
           const token = `vitrineblock${nonce}n${inserts.size}`;
-          inserts.set(token, blockHtml(block, file, charts.get(block)));
+          inserts.set(token, blockHtml(block, lines, charts.get(block)));
           nodes[i] = { type: 'paragraph', children: [{ type: 'text', value: token }] };
           continue;
         }

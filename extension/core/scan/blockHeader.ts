@@ -5,11 +5,11 @@
 import type { FencedBlock } from './fenceScanner.js';
 import type { Span } from '../text/positions.js';
 
-export const BLOCK_KINDS = ['material', 'deposition', 'ramp', 'isotherm', 'dsc', 'relaxation', 'results'] as const;
-export type BlockKind = (typeof BLOCK_KINDS)[number];
+import { BLOCK_KINDS, ID_PATTERN, type BlockKind } from '../model/blockKind.js';
+
+export { BLOCK_KINDS, ID_PATTERN, type BlockKind };
 
 const KIND_SET: ReadonlySet<string> = new Set(BLOCK_KINDS);
-export const ID_PATTERN = /^[A-Za-z0-9][A-Za-z0-9._:-]*$/;
 
 export interface BlockHeader {
   readonly kind: BlockKind;

@@ -108,6 +108,12 @@ export function toOneBased(range: PositionRange): OneBasedRange {
   };
 }
 
+/** The same rule for one position: 1-based line and column. */
+export function toOneBasedPoint(position: Position): { readonly line: number; readonly column: number } {
+  const r = toOneBased({ start: position, end: position });
+  return { line: r.line, column: r.column };
+}
+
 /** A span that covers at least one character where the text allows it, so no range is empty. */
 export function visibleSpan(span: Span, textLength: number): Span {
   if (span.end > span.start) return span;

@@ -1,0 +1,12 @@
+/** A quantity read from metadata, in the canonical unit of its dimension. */
+export interface Quantity {
+  /** Value in the canonical unit of the dimension. */
+  readonly value: number;
+  /** Standard uncertainty in the canonical unit, when written. */
+  readonly uncertainty?: number;
+  readonly unit: string;
+  /** The unit as the user wrote it; empty for a bare number. */
+  readonly writtenUnit: string;
+  /** Written in °C or °F. */
+  readonly offsetTemperature: boolean;
+}
