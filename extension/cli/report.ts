@@ -1,7 +1,9 @@
 /** `vitrine report`: charts rendered to SVG in Node, the HTML report, and optionally CSV and PNG. */
 import * as fs from 'node:fs';
 import * as path from 'node:path';
-import { buildHtmlReport, figureSpec, stabilityMapSpecs, summarise, summaryCsv, toVega, type BlockReport, type NotebookReport } from '../core/index.js';
+import { figureSpec, stabilityMapSpecs, toVega } from '../core/charts/index.js';
+import { summarise, type BlockReport, type NotebookReport } from '../core/index.js';
+import { buildHtmlReport, summaryCsv } from '../core/report/index.js';
 import { renderSvg } from './renderSvg.js';
 
 export interface ReportOptions {

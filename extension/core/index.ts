@@ -1,20 +1,20 @@
-/** The public API of the Vitrine core. Hosts import from here only. */
-export { Notebook, type BlockReport, type FileReport, type NotebookReport, type NotebookOptions } from './engine/notebook.js';
-export { InMemoryHost, type NotebookHost, type DataFileRead } from './model/host.js';
+/**
+ * The engine's public API: notebooks in, plain reports out. Hosts (CLI, language server, tests)
+ * import from here; charts and the HTML report have their own entry points
+ * (`charts/index.ts`, `report/index.ts`), so that the engine alone carries no chart library.
+ */
+export { Notebook, type AnalyzeOptions, type BlockLocation, type BlockReference, type CancellationToken, type NotebookOptions } from './engine/notebook.js';
+export { InMemoryHost, NO_FILES, type NotebookHost, type DataFileRead } from './engine/host.js';
+export { MAX_DATA_FILE_BYTES } from './engine/dataFiles.js';
 export { toJsonReport, formatDiagnosticLine, type JsonReport, type JsonDiagnostic } from './engine/jsonReport.js';
 export { summarise, type FilmSummary } from './engine/summary.js';
 export { countDiagnostics, type SeverityCounts } from './engine/counts.js';
-export type { Diagnostic, Severity, SeverityOverrides } from './model/diagnostic.js';
+export type { BlockReport, FileReport, NotebookReport } from './model/report.js';
+export type { Diagnostic, Fix, RelatedLocation, Severity, SeverityOverrides } from './model/diagnostic.js';
 export type { ResultValue, Results } from './model/result.js';
+export type { FigureData, FigureMarker, FigureSeries } from './model/figure.js';
+export type { Quantity } from './model/quantity.js';
+export type { Span, Position, PositionRange } from './model/span.js';
+export { BLOCK_KINDS, type BlockKind } from './model/blockKind.js';
 export { scanFencedBlocks, type FencedBlock } from './scan/fenceScanner.js';
-export { LineIndex, stripBom, toOneBased, type Span, type Position } from './text/positions.js';
-export { BLOCK_KINDS, type BlockKind } from './scan/blockHeader.js';
-export { MAX_DATA_FILE_BYTES } from './block/parseBlock.js';
-export { figureSpec, type VegaLiteSpec } from './charts/figureSpec.js';
-export { stabilityMapSpecs } from './charts/mapSpecs.js';
-export { toVega } from './charts/compile.js';
-export { themeConfig, PALETTE, type Theme } from './charts/theme.js';
-export type { FigureData } from './model/figure.js';
-export { buildHtmlReport, type ReportInput } from './report/htmlReport.js';
-export { summaryCsv } from './report/summaryCsv.js';
-export { escapeHtml } from './report/escape.js';
+export { LineIndex, stripBom, toOneBased, toOneBasedPoint } from './text/positions.js';

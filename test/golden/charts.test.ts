@@ -1,7 +1,8 @@
 import assert from 'node:assert/strict';
 import * as fs from 'node:fs';
 import * as path from 'node:path';
-import { figureSpec, stabilityMapSpecs, summarise, toVega } from '../../extension/core/index.js';
+import { figureSpec, stabilityMapSpecs, toVega } from '../../extension/core/charts/index.js';
+import { summarise } from '../../extension/core/index.js';
 import { renderSvg } from '../../extension/cli/renderSvg.js';
 import { loadNotebook, REPO } from '../support/loadNotebook.js';
 

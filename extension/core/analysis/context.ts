@@ -15,6 +15,15 @@ export interface AnalysisContext {
   resultsOf(block: ParsedBlock): Results;
   /** Blocks of a kind that refer to a given id by a key (e.g. ramps whose film is D-17). */
   referrers(kind: ParsedBlock['kind'], key: string, id: string): readonly ParsedBlock[];
+  /** Throws `Cancelled` when the host no longer wants the result; long analyses call it between steps. */
+  checkCancelled(): void;
+}
+
+/** Thrown through an analysis when its run is cancelled; the engine catches it and caches nothing. */
+export class Cancelled extends Error {
+  constructor() {
+    super('cancelled');
+  }
 }
 
 

@@ -87,6 +87,7 @@ export function analyzeRamp(block: ParsedBlock, ctx: AnalysisContext): Analysis 
   if (names.length === 0) return nominal;
   const spread = new Map<string, number>();
   for (const choice of VARIANTS) {
+    ctx.checkCancelled();
     const r = rampDetails(block, ctx, { ...choice, figuresOnly: true }).analysis.results;
     for (const n of names) {
       const v = r[n]?.value;

@@ -22,10 +22,6 @@ import { BodyMap } from '../text/bodyMap.js';
 import { hashText } from '../text/hash.js';
 import { resolveNotebookPath } from '../text/notebookPath.js';
 import { toOneBasedPoint, type Span } from '../text/positions.js';
-import type { NotebookHost } from '../model/host.js';
-
-/** Data files larger than this are refused with a diagnostic. */
-export const MAX_DATA_FILE_BYTES = 32 * 1024 * 1024;
 
 /** Kinds whose blocks carry a data table. */
 const KINDS_WITH_DATA: ReadonlySet<BlockKind> = new Set(['ramp', 'isotherm', 'dsc', 'relaxation']);
@@ -59,6 +55,8 @@ export interface ParsedBlock {
   readonly quantities: ReadonlyMap<string, Quantity>;
   readonly table: Table | null;
   readonly tableOrigin: TableOrigin | null;
+  /** Root-relative path of the data file the block names (read or not), for the engine's reverse index. */
+  readonly dataPath: string | null;
   readonly references: readonly Reference[];
   readonly diagnostics: readonly Diagnostic[];
   /** Document span (relative) of a metadata value or key, by JSON pointer. */
@@ -123,17 +121,35 @@ function rebaseHeader(header: BlockHeader, d: number): BlockHeader {
   };
 }
 
+/** Where a block's data file comes from: the engine's store of pushed or pulled files. */
+export interface DataTableSource {
+  /** The file's table read with the block's column map, or why it cannot be. */
+  table(path: string, columns: Readonly<Record<string, string>>): DataTableRead;
+}
+
+export type DataTableRead =
+  | { readonly ok: true; readonly table: Table; /** Changes whenever the file's content does. */ readonly stamp: string }
+  | { readonly ok: false; readonly reason: 'missing' | 'too-large' | 'outside-root' | 'unreadable'; readonly stamp: string; readonly size?: number; readonly limit?: number; readonly detail?: string };
+
 export interface ParseInput {
   readonly file: string;
+  /** `blockTextKey` of the block. */
+  readonly textKey: string;
   readonly fence: FencedBlock;
   readonly header: BlockHeader;
   /** The block's source text, from its first fence character to its end. */
   readonly source: string;
 }
 
-/** The cache key of a block before its data file is read. */
-export function blockTextKey(file: string, source: string): string {
-  return hashText(`${file}\u0000${source}`);
+/**
+ * The cache key of a block before its data file is read: its file, its text, and where each body
+ * line starts relative to the fence, so that the same text indented differently (or inside a list
+ * or quote) never shares a parse.
+ */
+export function blockTextKey(file: string, source: string, fence: FencedBlock): string {
+  const d = fence.span.start;
+  const layout = [fence.infoSpan.start - d, ...fence.bodyLines.map((l) => `${l.start - d}.${l.pad}`)].join(',');
+  return hashText(`${file}\u0000${source}\u0000${layout}`);
 }
 
 /** `line:column` as people read it, from 0-based line and character. */
@@ -142,7 +158,7 @@ function oneBasedPlace(line: number, character: number): string {
   return `${p.line}:${p.column}`;
 }
 
-export function parseBlock(input: ParseInput, host: NotebookHost, maxDataFileBytes = MAX_DATA_FILE_BYTES): ParsedBlock {
+export function parseBlock(input: ParseInput, data: DataTableSource): ParsedBlock {
   const fence = rebase(input.fence);
   const header = rebaseHeader(input.header, input.fence.span.start);
   const { kind } = header;
@@ -233,6 +249,8 @@ export function parseBlock(input: ParseInput, host: NotebookHost, maxDataFileByt
   // Table.
   let table: Table | null = null;
   let tableOrigin: TableOrigin | null = null;
+  let dataPath: string | null = null;
+  let dataStamp = '';
   let rowLineToDoc: (line: number) => Span = () => headerSpan;
   const columnsMap = (typeof metadata.data.columns === 'object' && metadata.data.columns !== null ? metadata.data.columns : {}) as Record<string, string>;
   const inlineLines = separator >= 0 ? bodyLines.slice(separator + 1) : null;
@@ -257,17 +275,17 @@ export function parseBlock(input: ParseInput, host: NotebookHost, maxDataFileByt
       if (!resolved.ok) {
         push(resolved.reason === 'absolute' ? messages.dataAbsolute(dataValue) : messages.dataOutsideRoot(dataValue), valueSpan);
       } else {
-        const read = host.readDataFile(resolved.path, maxDataFileBytes);
+        dataPath = resolved.path;
+        const read = data.table(resolved.path, columnsMap);
+        dataStamp = read.stamp;
         if (!read.ok) {
           if (read.reason === 'missing') push(messages.dataMissing(dataValue), valueSpan);
-          else if (read.reason === 'too-large') push(messages.dataTooLarge(dataValue, read.size ?? 0, maxDataFileBytes), valueSpan);
+          else if (read.reason === 'too-large') push(messages.dataTooLarge(dataValue, read.size ?? 0, read.limit ?? 0), valueSpan);
           else if (read.reason === 'outside-root') push(messages.dataOutsideRoot(dataValue), valueSpan);
           else push(messages.dataUnreadable(dataValue, read.detail ?? 'unknown error'), valueSpan);
         } else {
-          const text = read.text.startsWith('\uFEFF') ? read.text.slice(1) : read.text;
-          const lines = text.split(/\r\n|\r|\n/);
-          table = parseTable(lines, columnsMap);
-          tableOrigin = { source: 'file', path: resolved.path, fileHash: hashText(text) };
+          table = read.table;
+          tableOrigin = { source: 'file', path: resolved.path, fileHash: read.stamp };
           rowLineToDoc = () => valueSpan;
           const first = table.problems[0];
           if (first) {
@@ -295,7 +313,7 @@ export function parseBlock(input: ParseInput, host: NotebookHost, maxDataFileByt
     return rowLineToDoc(table.rowLines[row]);
   };
 
-  const key = hashText(`${blockTextKey(input.file, input.source)}\u0000${tableOrigin?.fileHash ?? ''}`);
+  const key = hashText(`${input.textKey}\u0000${dataStamp}`);
   return {
     kind,
     id: header.id,
@@ -307,6 +325,7 @@ export function parseBlock(input: ParseInput, host: NotebookHost, maxDataFileByt
     quantities,
     table,
     tableOrigin,
+    dataPath,
     references,
     diagnostics,
     spanOf,

@@ -2,32 +2,39 @@
  * The notebook engine: files in, results and diagnostics out.
  *
  * ```
- * setFile(text) ─► scan fences ─► data blocks ─► parse (cached by block text + data file)
- * analyze()     ─► index ids ─► references ─► analyses (cached, dependencies recorded and replayed)
- *               ─► reports: per file, per block, absolute spans, severity overrides applied
+ * setFile(text)      ─► scan fences ─► data blocks ─► parse (reused by block text, per file)
+ * setDataFile(text)  ─► store ─► re-parse only the blocks that read it (reverse index)
+ * analyze()          ─► index ids ─► references ─► analyses (cached, dependencies recorded and replayed)
+ *                    ─► plain reports: per file, per block, absolute 0-based spans, severity overrides
  * ```
  *
- * Caching: a parse is keyed by the file path and the block's source text (plus the data file's
- * stamp), with spans relative to the block, so typing elsewhere reuses it. An analysis records
+ * Caching: a parse is reused when its file still holds the same block text (key: file, text,
+ * layout), with spans relative to the block, so typing elsewhere reuses it. An analysis records
  * every lookup it makes through its context (ids, referrers) with the parse keys it saw; a cached
  * analysis is reused only when replaying those lookups gives the same keys. So an edit re-does
  * only the blocks it touches and those that depend on them. No markdown tree is ever built.
+ *
+ * Memory: every cache entry belongs to a block that a file holds now. Replacing a file drops the
+ * parses and analyses its new text no longer uses; deleting it drops them all.
  *
  * Policy: nothing throws out of the engine; a failing analysis becomes an `internal.error`
  * diagnostic on its block and the rest of the notebook is still analysed.
  */
 import { ANALYZERS } from '../analysis/analyzers.js';
 import { plausibilityWarnings } from '../analysis/plausibility.js';
-import type { Analysis, AnalysisContext } from '../analysis/context.js';
-import type { BlockReport, FileReport, NotebookReport } from '../model/report.js';
+import { Cancelled, type Analysis, type AnalysisContext } from '../analysis/context.js';
+import { blockTextKey, parseBlock, type ParsedBlock, type ParseInput } from '../block/parseBlock.js';
+import type { BlockKind } from '../model/blockKind.js';
 import { applyOverrides, at, type Diagnostic, type SeverityOverrides } from '../model/diagnostic.js';
 import { messages } from '../model/messages.js';
-import type { NotebookHost } from '../model/host.js';
-import { readBlockHeader, type BlockKind } from '../scan/blockHeader.js';
+import type { BlockReport, FileReport, NotebookReport } from '../model/report.js';
+import type { Span } from '../model/span.js';
+import { readBlockHeader } from '../scan/blockHeader.js';
 import { scanFencedBlocks } from '../scan/fenceScanner.js';
 import { hashParts } from '../text/hash.js';
-import { LineIndex, stripBom, toOneBasedPoint, type Span } from '../text/positions.js';
-import { blockTextKey, parseBlock, type ParsedBlock } from '../block/parseBlock.js';
+import { LineIndex, stripBom, toOneBasedPoint } from '../text/positions.js';
+import { DataFiles, MAX_DATA_FILE_BYTES } from './dataFiles.js';
+import type { NotebookHost } from './host.js';
 
 export type { BlockReport, FileReport, NotebookReport };
 
@@ -37,11 +44,45 @@ export interface NotebookOptions {
   readonly maxDataFileBytes?: number;
 }
 
+/** Structural, so that any host's token fits (LSP, VS Code, a test's plain object). */
+export interface CancellationToken {
+  readonly isCancellationRequested: boolean;
+}
+
+export interface AnalyzeOptions {
+  /** Report only these files (all files when omitted); the whole notebook is still indexed. */
+  readonly only?: readonly string[];
+  readonly token?: CancellationToken;
+}
+
+/** Where a block is: its file, its whole span and the span of its id (0-based offsets). */
+export interface BlockLocation {
+  readonly path: string;
+  readonly kind: BlockKind;
+  readonly id: string | null;
+  readonly span: Span;
+  readonly idSpan: Span | null;
+}
+
+/** A metadata value that names a block (`film: D-17`). */
+export interface BlockReference {
+  readonly path: string;
+  /** The block that holds the reference. */
+  readonly from: BlockLocation;
+  readonly key: string;
+  readonly span: Span;
+}
+
+interface BlockSlot {
+  readonly parsed: ParsedBlock;
+  readonly input: ParseInput;
+  readonly start: number;
+}
+
 interface FileEntry {
   readonly text: string;
   readonly lines: LineIndex;
-  readonly blocks: readonly ParsedBlock[];
-  readonly starts: readonly number[];
+  readonly blocks: readonly BlockSlot[];
   readonly diagnostics: readonly Diagnostic[];
 }
 
@@ -55,52 +96,68 @@ interface AnalysisEntry {
   readonly deps: readonly Dependency[];
 }
 
-const MAX_CACHE = 5000;
-
 export class Notebook {
   private readonly files = new Map<string, FileEntry>();
-  private readonly parseCache = new Map<string, ParsedBlock>();
   private readonly analysisCache = new Map<string, AnalysisEntry>();
+  /** How many current blocks have each parse key: an analysis is kept while its key lives. */
+  private readonly liveKeys = new Map<string, number>();
+  private readonly data: DataFiles;
+  private options: NotebookOptions;
   /** Counters for tests and the benchmark: how much work the last calls did. */
   readonly stats = { parsed: 0, analysed: 0 };
 
-  constructor(private readonly host: NotebookHost, private readonly options: NotebookOptions = {}) {}
+  constructor(host: NotebookHost, options: NotebookOptions = {}) {
+    this.options = options;
+    this.data = new DataFiles(host, options.maxDataFileBytes ?? MAX_DATA_FILE_BYTES);
+  }
 
-  /** Adds or replaces a file (root-relative path). Cheap: a line scan and cached parses. */
+  /** Changes the options; caches are kept (a new data file limit re-reads the data files). */
+  setOptions(options: NotebookOptions): void {
+    this.options = options;
+    if (this.data.setLimit(options.maxDataFileBytes ?? MAX_DATA_FILE_BYTES)) {
+      for (const path of [...this.files.keys()]) this.reparseData(path, () => true);
+    }
+  }
+
+  /** Adds or replaces a file (root-relative path). Cheap: a line scan and reused parses. */
   setFile(path: string, rawText: string): void {
     const text = stripBom(rawText);
-    const blocks: ParsedBlock[] = [];
-    const starts: number[] = [];
+    const old = this.files.get(path);
+    const reusable = new Map<string, ParsedBlock>();
+    for (const slot of old?.blocks ?? []) reusable.set(slot.input.textKey, slot.parsed);
+    const blocks: BlockSlot[] = [];
     const diagnostics: Diagnostic[] = [];
     try {
       for (const fence of scanFencedBlocks(text)) {
         const header = readBlockHeader(fence);
         if (!header) continue;
         const source = text.slice(fence.span.start, fence.span.end);
-        const key = blockTextKey(path, source);
-        let parsed = this.parseCache.get(key);
-        if (!parsed || parsed.tableOrigin?.source === 'file') {
-          const fresh = this.safeParse(path, fence, header, source, diagnostics);
-          if (!fresh) continue;
-          parsed = fresh;
-          this.remember(this.parseCache, key, parsed);
-        }
-        blocks.push(parsed);
-        starts.push(fence.span.start);
+        const input: ParseInput = { file: path, textKey: blockTextKey(path, source, fence), fence, header, source };
+        const parsed = reusable.get(input.textKey) ?? this.safeParse(input, diagnostics);
+        if (parsed) blocks.push({ parsed, input, start: fence.span.start });
       }
     } catch (e) {
-      diagnostics.push(at(messages.internalError(e instanceof Error ? e.message : String(e)), { start: 0, end: Math.min(1, text.length) }));
+      diagnostics.push(at(messages.internalError(errorText(e)), { start: 0, end: Math.min(1, text.length) }));
     }
-    this.files.set(path, { text, lines: new LineIndex(text), blocks, starts, diagnostics });
+    this.replace(path, { text, lines: new LineIndex(text), blocks, diagnostics });
   }
 
   /** Records that a file could not be read, so that it still appears in the report. */
   setUnreadable(path: string, detail: string): void {
-    this.files.set(path, { text: '', lines: new LineIndex(''), blocks: [], starts: [], diagnostics: [at(messages.fileUnreadable(detail), { start: 0, end: 0 })] });
+    this.replace(path, { text: '', lines: new LineIndex(''), blocks: [], diagnostics: [at(messages.fileUnreadable(detail), { start: 0, end: 0 })] });
   }
 
   deleteFile(path: string): void {
-    this.files.delete(path);
+    this.replace(path, null);
+  }
+
+  /** Pushes a data file's text (or why it cannot be read); re-parses only the blocks that read it. */
+  setDataFile(path: string, content: string | { readonly unreadable: string }): void {
+    for (const file of this.data.set(path, content)) this.reparseData(file, (p) => p === path);
+  }
+
+  deleteDataFile(path: string): void {
+    for (const file of this.data.delete(path)) this.reparseData(file, (p) => p === path);
   }
 
   hasFile(path: string): boolean {
@@ -111,45 +168,158 @@ export class Notebook {
     return [...this.files.keys()].sort();
   }
 
-  private safeParse(path: string, fence: Parameters<typeof parseBlock>[0]['fence'], header: Parameters<typeof parseBlock>[0]['header'], source: string, out: Diagnostic[]): ParsedBlock | null {
+  /** What the engine holds now: for tests and the benchmark (memory must follow the files, not the history). */
+  holdings(): { readonly blocks: number; readonly analyses: number; readonly dataFiles: number } {
+    let blocks = 0;
+    for (const e of this.files.values()) blocks += e.blocks.length;
+    return { blocks, analyses: this.analysisCache.size, dataFiles: this.data.paths().length };
+  }
+
+  /** Notebook files that read a data file. */
+  readersOf(dataPath: string): string[] {
+    return this.data.readersOf(dataPath).sort();
+  }
+
+  private replace(path: string, entry: FileEntry | null): void {
+    const old = this.files.get(path);
+    for (const slot of entry?.blocks ?? []) this.liveKeys.set(slot.parsed.key, (this.liveKeys.get(slot.parsed.key) ?? 0) + 1);
+    for (const slot of old?.blocks ?? []) {
+      const n = (this.liveKeys.get(slot.parsed.key) ?? 0) - 1;
+      if (n > 0) this.liveKeys.set(slot.parsed.key, n);
+      else {
+        this.liveKeys.delete(slot.parsed.key);
+        this.analysisCache.delete(slot.parsed.key);
+      }
+    }
+    this.data.updateReaders(path, dataPathsOf(old), dataPathsOf(entry));
+    if (entry) this.files.set(path, entry);
+    else this.files.delete(path);
+  }
+
+  /** Re-parses the blocks of a file whose data path matches (after a data file changed). */
+  private reparseData(path: string, matches: (dataPath: string) => boolean): void {
+    const entry = this.files.get(path);
+    if (!entry) return;
+    const diagnostics = entry.diagnostics.slice();
+    const blocks = entry.blocks.map((slot) => {
+      if (slot.parsed.dataPath === null || !matches(slot.parsed.dataPath)) return slot;
+      const parsed = this.safeParse(slot.input, diagnostics);
+      return parsed ? { ...slot, parsed } : slot;
+    });
+    this.replace(path, { ...entry, blocks, diagnostics });
+  }
+
+  private safeParse(input: ParseInput, out: Diagnostic[]): ParsedBlock | null {
     try {
       this.stats.parsed++;
-      return parseBlock({ file: path, fence, header, source }, this.host, this.options.maxDataFileBytes);
+      return parseBlock(input, this.data);
     } catch (e) {
-      out.push(at(messages.internalError(e instanceof Error ? e.message : String(e)), header.kindSpan));
+      out.push(at(messages.internalError(errorText(e)), input.header.kindSpan));
       return null;
     }
   }
 
-  private remember<V>(cache: Map<string, V>, key: string, value: V): void {
-    if (cache.size >= MAX_CACHE) cache.clear();
-    cache.set(key, value);
+  private run(token?: CancellationToken): AnalysisRun {
+    return new AnalysisRun(this.files, this.analysisCache, this.liveKeys, this.stats, token);
   }
 
   /** The hash a results block must carry to freeze the current results of a block. */
   inputsHashOf(id: string): string | undefined {
-    const run = new AnalysisRun(this.files, this.analysisCache, this.stats, (k, v) => this.remember(this.analysisCache, k, v));
-    return run.inputsHashOfId(id);
+    return this.run().inputsHashOfId(id);
   }
 
-  /** Analyses the notebook and reports the given files (all files when omitted). */
-  analyze(only?: readonly string[]): NotebookReport {
-    const run = new AnalysisRun(this.files, this.analysisCache, this.stats, (k, v) => this.remember(this.analysisCache, k, v));
-    const paths = only ?? this.paths();
+  /**
+   * Analyses the notebook and reports the given files (all files when omitted). Returns
+   * `undefined` when the token is cancelled: nothing half-done is cached or reported.
+   */
+  analyze(only?: readonly string[]): NotebookReport;
+  analyze(options: AnalyzeOptions & { readonly token: CancellationToken }): NotebookReport | undefined;
+  analyze(options: Omit<AnalyzeOptions, 'token'>): NotebookReport;
+  analyze(options: AnalyzeOptions | readonly string[] = {}): NotebookReport | undefined {
+    const { only, token } = Array.isArray(options) ? { only: options as readonly string[], token: undefined } : (options as AnalyzeOptions);
+    const run = this.run(token);
     const files: FileReport[] = [];
-    for (const path of paths) {
-      const entry = this.files.get(path);
-      if (!entry) continue;
-      const blocks: BlockReport[] = entry.blocks.map((parsed, i) => run.report(parsed, path, entry.starts[i], this.options.severity));
-      files.push({
-        path,
-        text: entry.text,
-        blocks,
-        diagnostics: applyOverrides(entry.diagnostics, this.options.severity),
-      });
+    try {
+      for (const path of only ?? this.paths()) {
+        const entry = this.files.get(path);
+        if (!entry) continue;
+        const blocks: BlockReport[] = [];
+        for (const slot of entry.blocks) {
+          if (token?.isCancellationRequested) return undefined;
+          blocks.push(run.report(slot.parsed, path, slot.start, this.options.severity));
+        }
+        files.push({ path, text: entry.text, blocks, diagnostics: applyOverrides(entry.diagnostics, this.options.severity) });
+      }
+    } catch (e) {
+      if (e instanceof Cancelled) return undefined;
+      throw e;
     }
     return { files };
   }
+
+  // Queries over the current files (no analysis needed).
+
+  /** The block with this id (the first one, if the id is duplicated). */
+  definitionOf(id: string): BlockLocation | undefined {
+    for (const path of this.paths()) {
+      for (const slot of this.files.get(path)!.blocks) if (slot.parsed.id === id) return locationOf(path, slot);
+    }
+    return undefined;
+  }
+
+  /** Every metadata value that names this id, in notebook order. */
+  referencesTo(id: string): BlockReference[] {
+    const out: BlockReference[] = [];
+    for (const path of this.paths()) {
+      for (const slot of this.files.get(path)!.blocks) {
+        for (const ref of slot.parsed.references) {
+          if (ref.id === id) out.push({ path, from: locationOf(path, slot), key: ref.key, span: shift(ref.span, slot.start) });
+        }
+      }
+    }
+    return out;
+  }
+
+  /** Every block with an id, of one kind or all, in notebook order. */
+  ids(kind?: BlockKind): BlockLocation[] {
+    const out: BlockLocation[] = [];
+    for (const path of this.paths()) {
+      for (const slot of this.files.get(path)!.blocks) {
+        if (slot.parsed.id !== null && (kind === undefined || slot.parsed.kind === kind)) out.push(locationOf(path, slot));
+      }
+    }
+    return out;
+  }
+
+  /** The data block whose span holds the offset (its end included, so a cursor after the fence counts). */
+  blockAt(path: string, offset: number): BlockLocation | undefined {
+    const entry = this.files.get(path);
+    if (!entry) return undefined;
+    for (const slot of entry.blocks) {
+      const span = shift(slot.parsed.span, slot.start);
+      if (offset >= span.start && offset <= span.end) return locationOf(path, slot);
+    }
+    return undefined;
+  }
+}
+
+function errorText(e: unknown): string {
+  return e instanceof Error ? e.message : String(e);
+}
+
+function shift(s: Span, by: number): Span {
+  return { start: s.start + by, end: s.end + by };
+}
+
+function locationOf(path: string, slot: BlockSlot): BlockLocation {
+  const p = slot.parsed;
+  return { path, kind: p.kind, id: p.id, span: shift(p.span, slot.start), idSpan: p.header.idSpan ? shift(p.header.idSpan, slot.start) : null };
+}
+
+function dataPathsOf(entry: FileEntry | null | undefined): string[] {
+  const out: string[] = [];
+  for (const slot of entry?.blocks ?? []) if (slot.parsed.dataPath !== null) out.push(slot.parsed.dataPath);
+  return out;
 }
 
 /** One pass of analysis over a fixed set of files: the index, memoised results. */
@@ -162,14 +332,15 @@ class AnalysisRun {
   constructor(
     private readonly files: ReadonlyMap<string, FileEntry>,
     private readonly cache: Map<string, AnalysisEntry>,
+    private readonly liveKeys: ReadonlyMap<string, number>,
     private readonly stats: { analysed: number },
-    private readonly store: (key: string, entry: AnalysisEntry) => void,
+    private readonly token: CancellationToken | undefined,
   ) {
     for (const [file, entry] of [...files.entries()].sort((a, b) => (a[0] < b[0] ? -1 : a[0] > b[0] ? 1 : 0))) {
-      entry.blocks.forEach((block, i) => {
+      entry.blocks.forEach(({ parsed: block, start }) => {
         if (block.id !== null) {
           const list = this.byId.get(block.id) ?? [];
-          list.push({ block, file, start: entry.starts[i] });
+          list.push({ block, file, start });
           this.byId.set(block.id, list);
         }
         for (const [key, value] of Object.entries(block.metadata.data)) {
@@ -235,6 +406,9 @@ class AnalysisRun {
         deps.push({ type: 'results', key: other.key }, ...entry.deps);
         return entry.analysis.results;
       },
+      checkCancelled: () => {
+        if (this.token?.isCancellationRequested) throw new Cancelled();
+      },
     };
     let analysis: Analysis;
     try {
@@ -242,12 +416,14 @@ class AnalysisRun {
       const raw = ANALYZERS[block.kind](block, ctx);
       analysis = { ...raw, diagnostics: [...raw.diagnostics, ...plausibilityWarnings(raw.results, block.header.idSpan ?? block.header.kindSpan)] };
     } catch (e) {
-      analysis = { results: {}, diagnostics: [at(messages.internalError(e instanceof Error ? e.message : String(e)), block.header.kindSpan)] };
+      this.inProgress.delete(block);
+      if (e instanceof Cancelled) throw e;
+      analysis = { results: {}, diagnostics: [at(messages.internalError(errorText(e)), block.header.kindSpan)] };
     }
     this.inProgress.delete(block);
     const entry: AnalysisEntry = { analysis, deps };
     this.memo.set(block, entry);
-    this.store(block.key, entry);
+    if (this.liveKeys.has(block.key)) this.cache.set(block.key, entry);
     return entry;
   }
 
@@ -311,7 +487,7 @@ class AnalysisRun {
       span: { start: block.span.start + start, end: block.span.end + start },
       results: analysis.results,
       diagnostics: applyOverrides(absolute, severity),
-      metadata: block.metadata.data,
+      metadata: block.metadata.data as Readonly<Record<string, unknown>>,
       quantities: Object.fromEntries(block.quantities),
       ...(analysis.figure ? { figure: analysis.figure } : {}),
     };
