@@ -16,5 +16,6 @@ export type { FigureData, FigureMarker, FigureSeries } from './model/figure.js';
 export type { Quantity } from './model/quantity.js';
 export type { Span, Position, PositionRange } from './model/span.js';
 export { BLOCK_KINDS, type BlockKind } from './model/blockKind.js';
+export { DIAGNOSTIC_CODES, type DiagnosticCode } from './model/codes.js';
 export { scanFencedBlocks, type FencedBlock } from './scan/fenceScanner.js';
 export { LineIndex, stripBom, toOneBased, toOneBasedPoint } from './text/positions.js';

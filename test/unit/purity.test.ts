@@ -17,3 +17,19 @@ describe('core purity lint rule', () => {
     assert.equal((await lint("import * as fs from 'node:fs';\nexport const a = fs;\n", 'extension/cli/x.ts')).length, 0);
   });
 });
+
+describe('core layer lint rule', () => {
+  const eslint = new ESLint({ cwd: REPO });
+  const lint = async (code: string, file: string) => (await eslint.lintText(code, { filePath: `${REPO}/${file}` }))[0].messages.filter((m) => m.ruleId === 'no-restricted-imports');
+
+  it('rejects an import from a higher layer', async () => {
+    assert.equal((await lint("import { Notebook } from '../engine/notebook.js';\nexport const a = Notebook;\n", 'extension/core/analysis/x.ts')).length, 1);
+    assert.equal((await lint("import { parseTable } from '../parse/table.js';\nexport const a = parseTable;\n", 'extension/core/model/x.ts')).length, 1);
+    assert.equal((await lint("import { fitLine } from '../numeric/lineFit.js';\nexport const a = fitLine;\n", 'extension/core/text/x.ts')).length, 1, 'same rank');
+  });
+
+  it('allows an import from a lower layer and within a folder', async () => {
+    assert.equal((await lint("import { parseTable } from '../parse/table.js';\nexport const a = parseTable;\n", 'extension/core/block/x.ts')).length, 0);
+    assert.equal((await lint("import { analyzeRamp } from './rampAnalysis.js';\nexport const a = analyzeRamp;\n", 'extension/core/analysis/x.ts')).length, 0);
+  });
+});

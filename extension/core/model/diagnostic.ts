@@ -2,6 +2,7 @@
  * Diagnostics are data: a stable code, a severity the user can change, a message built in
  * `messages.ts`, and a span in the markdown document (0-based offsets, end-exclusive).
  */
+import type { DiagnosticCode } from './codes.js';
 import type { Span } from './span.js';
 
 export type Severity = 'error' | 'warning' | 'info';
@@ -20,7 +21,7 @@ export interface RelatedLocation {
 
 /** What a message builder returns: everything but the place. */
 export interface Message {
-  readonly code: string;
+  readonly code: DiagnosticCode;
   readonly severity: Severity;
   readonly message: string;
   readonly phase?: DiagnosticPhase;

@@ -3,9 +3,10 @@
  * default severity and a sentence that says what is wrong and what to do. Tests assert against
  * these builders, not against copied strings.
  */
+import type { DiagnosticCode } from './codes.js';
 import type { Message, Severity } from './diagnostic.js';
 
-function msg(code: string, severity: Severity, message: string, phase?: 'save'): Message {
+function msg(code: DiagnosticCode, severity: Severity, message: string, phase?: 'save'): Message {
   return phase ? { code, severity, message, phase } : { code, severity, message };
 }
 
