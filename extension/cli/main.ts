@@ -8,10 +8,9 @@
  * markdown files of its folder as its root, so its references resolve.
  * Exit status: 0 no errors (warnings allowed), 1 errors found, 2 usage or internal failure.
  */
-import * as fs from 'node:fs';
 import * as path from 'node:path';
-import { Notebook, countDiagnostics, formatDiagnosticLine, summarise, toJsonReport, type JsonReport, type NotebookReport } from '../core/index.js';
-import { FileHost, markdownFiles } from '../node/fileHost.js';
+import { countDiagnostics, formatDiagnosticLine, summarise, toJsonReport, type JsonReport } from '../core/index.js';
+import { loadRoot, rootsOf, RootError, type RootRun } from '../node/notebookRoots.js';
 import { progressBar, type Progress } from './progress.js';
 import { writeReport } from './report.js';
 import { summaryTable } from './summaryTable.js';
@@ -46,64 +45,17 @@ export interface CliIo {
   readonly errIsTty?: boolean;
 }
 
+
 class UsageError extends Error {}
 
-interface RootRun {
-  readonly root: string;
-  readonly report: NotebookReport;
-}
-
-function loadRoot(root: string, only: string[] | null, progress: Progress | null): RootRun {
-  const host = new FileHost(root);
-  const notebook = new Notebook(host);
-  const files = markdownFiles(root);
-  for (const [i, rel] of files.entries()) {
-    progress?.update(i, files.length, rel);
-    try {
-      notebook.setFile(rel, fs.readFileSync(path.join(root, ...rel.split('/')), 'utf8'));
-    } catch (e) {
-      notebook.setUnreadable(rel, e instanceof Error ? e.message : String(e));
-    }
-  }
-  progress?.done();
-  return { root, report: notebook.analyze(only ?? undefined) };
-}
-
-/** Groups the PATH arguments into notebook roots (or puts them all under `--root`). */
+/** Reads and analyses each notebook root that the PATH arguments name. */
 function runs(paths: readonly string[], cwd: string, progress: Progress | null = null, rootOption?: string): RootRun[] {
-  const byRoot = new Map<string, string[] | null>();
-  const explicitRoot = rootOption ? path.resolve(cwd, rootOption) : null;
-  if (explicitRoot && !fs.existsSync(explicitRoot)) throw new UsageError(`--root ${rootOption}: no such folder`);
-  for (const p of paths) {
-    const abs = path.resolve(cwd, p);
-    let stat: fs.Stats;
-    try {
-      stat = fs.statSync(abs);
-    } catch {
-      throw new UsageError(`${p}: no such file or folder`);
-    }
-    if (explicitRoot) {
-      const rel = path.relative(explicitRoot, abs).split(path.sep).join('/');
-      if (rel.startsWith('..') || path.isAbsolute(rel)) throw new UsageError(`${p} is not inside --root ${rootOption}`);
-      const list = byRoot.get(explicitRoot);
-      if (list === null) continue;
-      if (stat.isDirectory() && rel === '') {
-        byRoot.set(explicitRoot, null);
-      } else {
-        const chosen = stat.isDirectory() ? markdownFiles(abs).map((f) => `${rel}/${f}`) : [rel];
-        byRoot.set(explicitRoot, [...(list ?? []), ...chosen]);
-      }
-    } else if (stat.isDirectory()) {
-      byRoot.set(abs, null);
-    } else {
-      const root = path.dirname(abs);
-      const rel = path.basename(abs);
-      const list = byRoot.get(root);
-      if (list === null) continue;
-      byRoot.set(root, [...(list ?? []), rel]);
-    }
+  try {
+    return rootsOf(paths, cwd, rootOption).map(({ root, only }) => loadRoot(root, only, progress ?? undefined));
+  } catch (e) {
+    if (e instanceof RootError) throw new UsageError(e.message);
+    throw e;
   }
-  return [...byRoot.entries()].map(([root, only]) => loadRoot(root, only, progress));
 }
 
 function totals(all: readonly RootRun[]): { error: number; warning: number } {

@@ -1,4 +1,4 @@
-/** The CLI's NotebookHost: data files from disk, confined to the notebook root (real paths). */
+/** The NotebookHost of the CLI and the server: data files from disk, confined to the notebook root (real paths). */
 import * as fs from 'node:fs';
 import * as path from 'node:path';
 import type { DataFileRead, NotebookHost } from '../core/index.js';
@@ -29,30 +29,4 @@ export class FileHost implements NotebookHost {
       return { ok: false, reason: 'unreadable', detail: e instanceof Error ? e.message : String(e) };
     }
   }
-}
-
-const SKIP_DIRS = new Set(['node_modules', '.git', 'dist', 'out']);
-
-/** Every markdown file below a root, root-relative with `/`, sorted. Hidden folders are skipped. */
-export function markdownFiles(root: string): string[] {
-  const out: string[] = [];
-  const walk = (dir: string, rel: string): void => {
-    let entries: fs.Dirent[];
-    try {
-      entries = fs.readdirSync(dir, { withFileTypes: true });
-    } catch {
-      return;
-    }
-    for (const e of entries) {
-      if (e.name.startsWith('.')) continue;
-      const childRel = rel ? `${rel}/${e.name}` : e.name;
-      if (e.isDirectory()) {
-        if (!SKIP_DIRS.has(e.name)) walk(path.join(dir, e.name), childRel);
-      } else if (e.isFile() && /\.(md|markdown)$/i.test(e.name)) {
-        out.push(childRel);
-      }
-    }
-  };
-  walk(root, '');
-  return out.sort();
 }

@@ -2,7 +2,8 @@
 import * as fs from 'node:fs';
 import * as path from 'node:path';
 import { Notebook, type NotebookOptions } from '../../extension/core/index.js';
-import { FileHost, markdownFiles } from '../../extension/node/fileHost.js';
+import { markdownFiles } from '../../extension/node/discovery.js';
+import { FileHost } from '../../extension/node/fileHost.js';
 
 export const REPO = path.resolve(import.meta.dirname, '..', '..');
 
