@@ -3,11 +3,14 @@
  * import from here; charts and the HTML report have their own entry points
  * (`charts/index.ts`, `report/index.ts`), so that the engine alone carries no chart library.
  */
-export { Notebook, type AnalyzeOptions, type BlockLocation, type BlockReference, type CancellationToken, type NotebookOptions } from './engine/notebook.js';
+export { Notebook, type AnalyzeOptions, type BlockLocation, type BlockReference, type CancellationToken, type MetadataEntry, type NotebookOptions } from './engine/notebook.js';
 export { InMemoryHost, NO_FILES, type NotebookHost, type DataFileRead } from './engine/host.js';
-export { MAX_DATA_FILE_BYTES } from './engine/dataFiles.js';
+export { MAX_DATA_FILE_BYTES, type DataFileFailure } from './engine/dataFiles.js';
 export { toJsonReport, formatDiagnosticLine, type JsonReport, type JsonDiagnostic } from './engine/jsonReport.js';
 export { summarise, type FilmSummary } from './engine/summary.js';
+export { SUMMARY_TABLE_COLUMNS, summaryCell, isNumeric, type SummaryColumn } from './engine/summaryColumns.js';
+export { RESULT_CATALOGUE, RESULT_NAMES, catalogueEntry, type CatalogueEntry, type NumberFormat, type Notation, type ResultName } from './model/catalogue.js';
+export { formatValue, formatUncertainty, formatMeasurement, formatQuantity, formatCsvNumber, formatInterval, unitText, resultText, resultValueText, resultUncertaintyText, resultIntervalText } from './model/formatResult.js';
 export { countDiagnostics, type SeverityCounts } from './engine/counts.js';
 export type { BlockReport, FileReport, NotebookReport } from './model/report.js';
 export type { Diagnostic, Fix, RelatedLocation, Severity, SeverityOverrides } from './model/diagnostic.js';
@@ -18,4 +21,4 @@ export type { Span, Position, PositionRange } from './model/span.js';
 export { BLOCK_KINDS, type BlockKind } from './model/blockKind.js';
 export { DIAGNOSTIC_CODES, type DiagnosticCode } from './model/codes.js';
 export { scanFencedBlocks, type FencedBlock } from './scan/fenceScanner.js';
-export { LineIndex, stripBom, toOneBased, toOneBasedPoint } from './text/positions.js';
+export { LineIndex, stripBom, toOneBased, toOneBasedPoint, visibleSpan } from './text/positions.js';

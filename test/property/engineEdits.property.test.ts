@@ -1,19 +1,19 @@
 import assert from 'node:assert/strict';
 import fc from 'fast-check';
-import { Notebook, type DataFileRead, type NotebookHost } from '../../extension/core/index.js';
+import { Notebook, type DataFileFailure, type DataFileRead, type NotebookHost } from '../../extension/core/index.js';
 import { DEPOSITION_BLOCK, MATERIAL_BLOCK, tableBlock } from '../support/synthetic.js';
 
 // A warm engine that has seen any sequence of edits must report exactly what a fresh engine
 // reports on the final texts: the caches may save work, never change an answer.
 
-type Content = string | { readonly unreadable: string };
+type Content = string | DataFileFailure;
 
 class MapHost implements NotebookHost {
   constructor(private readonly files: ReadonlyMap<string, Content>) {}
   readDataFile(path: string): DataFileRead {
     const c = this.files.get(path);
     if (c === undefined) return { ok: false, reason: 'missing' };
-    return typeof c === 'string' ? { ok: true, text: c } : { ok: false, reason: 'unreadable', detail: c.unreadable };
+    return typeof c === 'string' ? { ok: true, text: c } : c;
   }
 }
 
@@ -38,7 +38,7 @@ const PIECES = [
   'Some prose about the day.\n',
   '# A heading\n',
 ];
-const DATA: Content[] = [csvOf(312), csvOf(318), 'T/K, h/nm\n300, x\n', { unreadable: 'permission denied' }];
+const DATA: Content[] = [csvOf(312), csvOf(318), 'T/K, h/nm\n300, x\n', { ok: false, reason: 'unreadable', detail: 'permission denied' }, { ok: false, reason: 'too-large', size: 1e9 }];
 const FILES = ['a.md', 'b.md', 'days/c.md'];
 const DATA_PATHS = ['data/a.csv', 'data/b.csv'];
 

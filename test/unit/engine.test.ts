@@ -71,7 +71,7 @@ describe('Notebook as an editor drives it', () => {
     assert.ok(codes().includes('data.missing-file'));
     nb.setDataFile('data/a.csv', csv());
     assert.ok(!codes().includes('data.missing-file'));
-    nb.setDataFile('data/a.csv', { unreadable: 'permission denied' });
+    nb.setDataFile('data/a.csv', { ok: false, reason: 'unreadable', detail: 'permission denied' });
     assert.ok(codes().includes('data.unreadable'));
     nb.deleteDataFile('data/a.csv');
     assert.ok(codes().includes('data.missing-file'));

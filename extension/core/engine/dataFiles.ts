@@ -14,6 +14,9 @@ import type { DataFileRead, NotebookHost } from './host.js';
 /** Data files larger than this are refused with a diagnostic. */
 export const MAX_DATA_FILE_BYTES = 32 * 1024 * 1024;
 
+/** Why a data file cannot be read. */
+export type DataFileFailure = Extract<DataFileRead, { readonly ok: false }>;
+
 interface Entry {
   readonly read: DataFileRead;
   readonly pushed: boolean;
@@ -38,8 +41,8 @@ export class DataFiles implements DataTableSource {
   }
 
   /** Stores a pushed file (its text, or why it cannot be read). Returns the notebook files that read it. */
-  set(path: string, content: string | { readonly unreadable: string }): string[] {
-    const read: DataFileRead = typeof content === 'string' ? { ok: true, text: content } : { ok: false, reason: 'unreadable', detail: content.unreadable };
+  set(path: string, content: string | DataFileFailure): string[] {
+    const read: DataFileRead = typeof content === 'string' ? { ok: true, text: content } : content;
     this.entries.set(path, entry(typeof content === 'string' ? content : null, read, true, this.maxBytes));
     return this.readersOf(path);
   }

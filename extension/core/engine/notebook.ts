@@ -29,11 +29,12 @@ import { applyOverrides, at, type Diagnostic, type SeverityOverrides } from '../
 import { messages } from '../model/messages.js';
 import type { BlockReport, FileReport, NotebookReport } from '../model/report.js';
 import type { Span } from '../model/span.js';
+import { valueAt } from '../parse/metadata.js';
 import { readBlockHeader } from '../scan/blockHeader.js';
 import { scanFencedBlocks } from '../scan/fenceScanner.js';
 import { hashParts } from '../text/hash.js';
 import { LineIndex, stripBom, toOneBasedPoint } from '../text/positions.js';
-import { DataFiles, MAX_DATA_FILE_BYTES } from './dataFiles.js';
+import { DataFiles, MAX_DATA_FILE_BYTES, type DataFileFailure } from './dataFiles.js';
 import type { NotebookHost } from './host.js';
 
 export type { BlockReport, FileReport, NotebookReport };
@@ -62,6 +63,18 @@ export interface BlockLocation {
   readonly id: string | null;
   readonly span: Span;
   readonly idSpan: Span | null;
+}
+
+/** One `key: value` of a block's metadata, with 0-based spans. */
+export interface MetadataEntry {
+  readonly block: BlockLocation;
+  /** JSON pointer of the entry: `/film`, `/vft/B`, `/windows/glass/0`. */
+  readonly pointer: string;
+  readonly keySpan: Span;
+  readonly valueSpan: Span;
+  /** The offset is on the key rather than the value. */
+  readonly onKey: boolean;
+  readonly value: unknown;
 }
 
 /** A metadata value that names a block (`film: D-17`). */
@@ -152,7 +165,7 @@ export class Notebook {
   }
 
   /** Pushes a data file's text (or why it cannot be read); re-parses only the blocks that read it. */
-  setDataFile(path: string, content: string | { readonly unreadable: string }): void {
+  setDataFile(path: string, content: string | DataFileFailure): void {
     for (const file of this.data.set(path, content)) this.reparseData(file, (p) => p === path);
   }
 
@@ -223,7 +236,7 @@ export class Notebook {
     return new AnalysisRun(this.files, this.analysisCache, this.liveKeys, this.stats, token);
   }
 
-  /** The hash a results block must carry to freeze the current results of a block. */
+  /** The hash a results block must carry to record the current figures of a block. */
   inputsHashOf(id: string): string | undefined {
     return this.run().inputsHashOfId(id);
   }
@@ -289,6 +302,36 @@ export class Notebook {
       }
     }
     return out;
+  }
+
+  /** The data blocks of a file, in order. */
+  blocksOf(path: string): BlockLocation[] {
+    return (this.files.get(path)?.blocks ?? []).map((slot) => locationOf(path, slot));
+  }
+
+  /**
+   * The metadata entry under an offset: its JSON pointer (`/vft/B`), the spans of its key and
+   * value, and the value as written. Undefined outside any entry.
+   */
+  entryAt(path: string, offset: number): MetadataEntry | undefined {
+    const entry = this.files.get(path);
+    if (!entry) return undefined;
+    for (const slot of entry.blocks) {
+      const span = shift(slot.parsed.span, slot.start);
+      if (offset < span.start || offset > span.end) continue;
+      let best: MetadataEntry | undefined;
+      for (const pointer of slot.parsed.metadata.spans.keys()) {
+        const keySpan = shift(slot.parsed.spanOf(pointer, true), slot.start);
+        const valueSpan = shift(slot.parsed.spanOf(pointer), slot.start);
+        const inside = (s: Span) => offset >= s.start && offset <= s.end;
+        if (!inside(keySpan) && !inside(valueSpan)) continue;
+        const candidate: MetadataEntry = { block: locationOf(path, slot), pointer, keySpan, valueSpan, onKey: inside(keySpan), value: valueAt(slot.parsed.metadata.data, pointer) };
+        // The innermost entry wins (`/vft/B` over `/vft`).
+        if (!best || pointer.length > best.pointer.length) best = candidate;
+      }
+      return best;
+    }
+    return undefined;
   }
 
   /** The data block whose span holds the offset (its end included, so a cursor after the fence counts). */
@@ -432,7 +475,7 @@ class AnalysisRun {
     return b && b.kind !== 'results' ? this.inputsHash(b) : undefined;
   }
 
-  /** Hash of everything a block's results depend on: what a results block freezes. */
+  /** Hash of everything a block's results depend on: what a results block records. */
   inputsHash(block: ParsedBlock): string {
     const entry = this.analysisOf(block);
     const depKeys = entry.deps.map((d) => (d.type === 'lookup' ? `${d.id}=${d.key}` : d.type === 'referrers' ? `${d.refKey}=${d.keys}` : d.key));

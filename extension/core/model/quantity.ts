@@ -5,6 +5,8 @@ export interface Quantity {
   /** Standard uncertainty in the canonical unit, when written. */
   readonly uncertainty?: number;
   readonly unit: string;
+  /** What the quantity measures: `temperature`, `temperature_interval`, `length`, `time`, … */
+  readonly dimension: string;
   /** The unit as the user wrote it; empty for a bare number. */
   readonly writtenUnit: string;
   /** Written in °C or °F. */

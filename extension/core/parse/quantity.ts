@@ -21,7 +21,7 @@ export function parseQuantity(input: string | number, dimension: Dimension): Qua
   const canonical = CANONICAL[dimension].unit;
   if (typeof input === 'number') {
     if (!Number.isFinite(input)) return { ok: false, reason: 'not-finite', unitText: '' };
-    return { ok: true, assumedUnit: dimension !== 'dimensionless', quantity: { value: input, unit: canonical, writtenUnit: '', offsetTemperature: false } };
+    return { ok: true, assumedUnit: dimension !== 'dimensionless', quantity: { value: input, unit: canonical, dimension, writtenUnit: '', offsetTemperature: false } };
   }
   const m = QUANTITY.exec(input.trim());
   if (!m) return { ok: false, reason: 'not-a-number', unitText: '' };
@@ -30,7 +30,7 @@ export function parseQuantity(input: string | number, dimension: Dimension): Qua
   const unitText = m[3].trim();
   if (!Number.isFinite(value) || (u !== undefined && !Number.isFinite(u))) return { ok: false, reason: 'not-finite', unitText };
   if (unitText === '') {
-    return { ok: true, assumedUnit: dimension !== 'dimensionless', quantity: { value, ...(u === undefined ? {} : { uncertainty: u }), unit: canonical, writtenUnit: '', offsetTemperature: false } };
+    return { ok: true, assumedUnit: dimension !== 'dimensionless', quantity: { value, ...(u === undefined ? {} : { uncertainty: u }), unit: canonical, dimension, writtenUnit: '', offsetTemperature: false } };
   }
   const resolved = lookupUnit(unitText);
   if (!resolved) return { ok: false, reason: 'unknown-unit', unitText };
@@ -40,6 +40,6 @@ export function parseQuantity(input: string | number, dimension: Dimension): Qua
   return {
     ok: true,
     assumedUnit: false,
-    quantity: { value: converted, ...(uncertainty === undefined ? {} : { uncertainty }), unit: canonical, writtenUnit: unitText, offsetTemperature: resolved.absoluteTemperature },
+    quantity: { value: converted, ...(uncertainty === undefined ? {} : { uncertainty }), unit: canonical, dimension, writtenUnit: unitText, offsetTemperature: resolved.absoluteTemperature },
   };
 }

@@ -12,9 +12,11 @@ import remarkParse from 'remark-parse';
 import remarkRehype from 'remark-rehype';
 import { unified } from 'unified';
 import type { Code, Root, RootContent } from 'mdast';
-import { formatNumber } from '../model/messages.js';
+import { catalogueEntry } from '../model/catalogue.js';
+import { resultIntervalText, resultUncertaintyText, resultValueText, unitText } from '../model/formatResult.js';
 import type { BlockReport, NotebookReport } from '../engine/notebook.js';
 import type { FilmSummary } from '../engine/summary.js';
+import { SUMMARY_TABLE_COLUMNS, isNumeric, summaryCell } from '../engine/summaryColumns.js';
 import type { ResultValue } from '../model/result.js';
 import { hashText } from '../text/hash.js';
 import { LineIndex, toOneBasedPoint } from '../text/positions.js';
@@ -55,18 +57,19 @@ pre { background: var(--card); padding: 0.6rem; overflow-x: auto; }
 footer { margin-top: 3rem; color: var(--muted); font-size: 0.8rem; }
 `;
 
-function numberText(v: number): string {
-  return escapeHtml(formatNumber(v, 6));
-}
-
+/** Each result under its label (the result name beside it), printed by the one formatter. */
 function resultsTable(results: Readonly<Record<string, ResultValue>>): string {
   const entries = Object.entries(results);
   if (entries.length === 0) return '';
   const rows = entries
     .map(([name, r]) => {
-      const u = r.uncertainty !== undefined ? `± ${escapeHtml(formatNumber(r.uncertainty, 2))}` : '';
-      const interval = r.interval ? `<br><span class="interval">[${numberText(r.interval[0])}, ${numberText(r.interval[1])}]</span>` : '';
-      return `<tr><td><code>${escapeHtml(name)}</code></td><td class="num">${numberText(r.value)}</td><td class="num">${u}</td><td>${escapeHtml(r.unit === '1' ? '' : r.unit)}</td><td class="method">${escapeHtml(r.method)}${interval}</td></tr>`;
+      const entry = catalogueEntry(name);
+      const label = entry ? `<span class="label" title="${escapeHtml(entry.meaning)}">${escapeHtml(entry.label)}</span> ` : '';
+      const uText = resultUncertaintyText(name, r);
+      const u = uText ? `± ${escapeHtml(uText)}` : '';
+      const intervalText = resultIntervalText(name, r);
+      const interval = intervalText ? `<br><span class="interval">${escapeHtml(intervalText)}</span>` : '';
+      return `<tr><td>${label}<code>${escapeHtml(name)}</code></td><td class="num">${escapeHtml(resultValueText(name, r))}</td><td class="num">${u}</td><td>${escapeHtml(unitText(r.unit))}</td><td class="method">${escapeHtml(r.method)}${interval}</td></tr>`;
     })
     .join('');
   return `<table class="results"><thead><tr><th>result</th><th>value</th><th>u</th><th>unit</th><th>method</th></tr></thead><tbody>${rows}</tbody></table>`;
@@ -88,15 +91,10 @@ function blockHtml(block: BlockReport, lines: LineIndex, svg: string | undefined
 
 function summaryHtml(rows: readonly FilmSummary[]): string {
   if (rows.length === 0) return '<p>No films (deposition blocks) yet.</p>';
-  const v = (r: ResultValue | undefined, digits = 1): string => (r ? `${escapeHtml(r.value.toFixed(digits))}${r.uncertainty !== undefined ? ` ± ${escapeHtml(formatNumber(r.uncertainty, 2))}` : ''}` : '—');
-  const n = (x: number | undefined, digits: number): string => (x === undefined ? '—' : escapeHtml(x.toFixed(digits)));
-  const body = rows
-    .map(
-      (r) =>
-        `<tr><td>${escapeHtml(r.film)}</td><td>${escapeHtml(r.material ?? '—')}</td><td class="num">${n(r.tsub, 1)}</td><td class="num">${v(r.tsubOverTg, 3)}</td><td class="num">${n(r.rate, 3)}</td><td class="num">${v(r.tg)}</td><td class="num">${v(r.tonset)}</td><td class="num">${v(r.tfictive)}</td><td class="num">${v(r.densityGain, 2)}</td><td class="num">${r.stabilityRatio ? escapeHtml(r.stabilityRatio.value.toExponential(2)) : '—'}</td></tr>`,
-    )
-    .join('');
-  return `<table class="summary"><thead><tr><th>film</th><th>material</th><th>Tsub / K</th><th>Tsub/Tg</th><th>rate / (nm/s)</th><th>Tg / K</th><th>Tonset / K</th><th>Tf / K</th><th>Δρ/ρ / %</th><th>S = t/τα</th></tr></thead><tbody>${body}</tbody></table>`;
+  const columns = SUMMARY_TABLE_COLUMNS;
+  const head = columns.map((c) => `<th title="${escapeHtml(c.meaning)}">${escapeHtml(c.header)}</th>`).join('');
+  const body = rows.map((r) => `<tr>${columns.map((c) => `<td${isNumeric(c) ? ' class="num"' : ''}>${escapeHtml(summaryCell(c, r))}</td>`).join('')}</tr>`).join('');
+  return `<table class="summary"><thead><tr>${head}</tr></thead><tbody>${body}</tbody></table>`;
 }
 
 /** Renders one markdown file, with its data blocks replaced by their sections. */
