@@ -9,11 +9,18 @@ import { csvField } from '../../extension/core/report/escape.js';
 
 describe('vitrine report', function () {
   this.timeout(120000);
-  const tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'vitrine-report-'));
+  // Each test writes into its own fresh folder, removed after it.
+  let tmp = '';
+  beforeEach(() => {
+    tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'vitrine-report-'));
+  });
+  afterEach(() => {
+    fs.rmSync(tmp, { recursive: true, force: true });
+  });
 
   it('writes one self-contained HTML file with charts, results, summary and maps', async () => {
     const out = path.join(tmp, 'demo.html');
-    const r = await run(['report', 'fixtures/demo', '-o', out, '--csv', path.join(tmp, 'demo.csv'), '--png', path.join(tmp, 'png')]);
+    const r = await run(['report', 'fixtures/demo', '-o', out]);
     assert.equal(r.code, 0, r.err);
     assert.match(r.out, /wrote .*demo\.html \(8 block charts, 4 maps, 4 films\)/);
     const html = fs.readFileSync(out, 'utf8');
@@ -29,17 +36,23 @@ describe('vitrine report', function () {
     assert.match(r02.slice(0, r02.indexOf('</section>')), /<code>density_gain<\/code>/);
   });
 
-  it('writes the summary CSV with units in the header, one row per film', () => {
-    const csv = fs.readFileSync(path.join(tmp, 'demo.csv'), 'utf8').trim().split('\n');
+  it('writes the summary CSV with units in the header, one row per film', async () => {
+    const file = path.join(tmp, 'demo.csv');
+    const r = await run(['report', 'fixtures/demo', '-o', path.join(tmp, 'demo.html'), '--csv', file]);
+    assert.equal(r.code, 0, r.err);
+    const csv = fs.readFileSync(file, 'utf8').trim().split('\n');
     assert.equal(csv[0].split(',').slice(0, 8).join(','), 'film,material,file,Tsub/K,Tsub/Tg,rate/(nm/s),thickness/nm,Tg/K');
     assert.equal(csv.length, 1 + 4);
-    assert.match(csv[2], /^D-02,amberine-3,days\/2026-03-02\.md,270,0\.849/);
+    assert.match(csv[2], /^D-02,amberine-3,days\/2026-03-02\.md,270\.0,0\.849,0\.200,412,313\.829,0\.069,/);
   });
 
-  it('writes every chart as PNG', () => {
-    const files = fs.readdirSync(path.join(tmp, 'png'));
+  it('writes every chart as PNG', async () => {
+    const dir = path.join(tmp, 'png');
+    const r = await run(['report', 'fixtures/demo', '-o', path.join(tmp, 'demo.html'), '--png', dir]);
+    assert.equal(r.code, 0, r.err);
+    const files = fs.readdirSync(dir);
     assert.equal(files.length, 12);
-    const png = fs.readFileSync(path.join(tmp, 'png', 'ramp-R-02.png'));
+    const png = fs.readFileSync(path.join(dir, 'ramp-R-02.png'));
     assert.equal(png.subarray(1, 4).toString(), 'PNG');
   });
 

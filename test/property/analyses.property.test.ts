@@ -1,6 +1,7 @@
 import assert from 'node:assert/strict';
 import fc from 'fast-check';
 import { InMemoryHost, Notebook, toJsonReport } from '../../extension/core/index.js';
+import { uniform } from '../support/random.js';
 
 // Analyses on arbitrary numeric tables: no internal error, and every reported value finite.
 const MATERIAL = '```material M-1\nname: x\ntg: 300 K\ntg_source: test\nvft:\n  log10_tau0: -14\n  B: 1000 K\n  T0: 240 K\n```\n';
@@ -44,4 +45,63 @@ describe('analyses on arbitrary tables', () => {
       { numRuns: Number(process.env.RUNS ?? 400), seed: Number(process.env.SEED ?? 11) },
     );
   });
+});
+
+// Large tables: 200 000 rows of every kind, to show that no analysis overflows the stack (a
+// spread into Math.min) or takes unbounded time on a long noisy scan. A few fixed runs, one per
+// kind: the curves are built from a seed, with noise and an occasional wild value.
+const BIG_ROWS = 200_000;
+const MATERIAL_WITHOUT_VFT = '```material M-1\nname: x\ntg: 300 K\ntg_source: test\n```\n';
+// An isotherm whose τα comes from the material's VFT law, fitted to the large relaxation table.
+const SMALL_ISOTHERM = `\`\`\`isotherm I-2\nfilm: D-1\ntemperature: 320 K\n---\nt/s, h/nm\n${Array.from({ length: 40 }, (_, i) => `${i * 30}, ${100 + (i > 13 && i < 27 ? 0.1 * (i - 13) : i >= 27 ? 1.4 : 0)}`).join('\n')}\n\`\`\`\n`;
+const BIG_CASE = { seed: 7, noise: 1, wild: 2e-4 };
+
+type BigKind = 'ramp' | 'isotherm' | 'dsc' | 'relaxation';
+const BIG_HEAD: Record<BigKind, [string, string]> = {
+  ramp: ['ramp R-1\nfilm: D-1\nrate: 1 K/min\n', 't/s, T/K, h/nm'],
+  isotherm: ['isotherm I-1\nfilm: D-1\ntemperature: 310 K\n', 't/s, T/K, h/nm'],
+  dsc: ['dsc C-1\nfilm: D-1\nrate: 10 K/min\n', 'T/K, Cp/(J/(g*K))'],
+  relaxation: ['relaxation X-1\nmaterial: M-1\nmethod: test\n', 'T/K, tau/s'],
+};
+
+function bigTable(kind: BigKind, { seed, noise, wild }: { seed: number; noise: number; wild: number }): string {
+  const u = uniform(seed);
+  const jitter = (scale: number): number => noise * scale * (u() - 0.5);
+  const maybeWild = (v: number): number => (u() < wild ? [0, 1e-300, 1e12, -1][Math.floor(u() * 4)] : v);
+  const lines: string[] = [];
+  for (let i = 0; i < BIG_ROWS; i++) {
+    const x = i / BIG_ROWS;
+    if (kind === 'ramp') {
+      const T = 250 + 100 * (x < 0.5 ? 2 * x : 2 - 2 * x) + jitter(0.2);
+      lines.push(`${i * 0.5}, ${maybeWild(T)}, ${100 + 0.01 * T + 0.02 * Math.max(0, T - 300) + jitter(0.02)}`);
+    } else if (kind === 'isotherm') {
+      lines.push(`${i * 2}, ${310 + jitter(0.1)}, ${maybeWild(300 + 6 * Math.min(1, Math.max(0, (x - 0.4) / 0.3)) + jitter(0.1))}`);
+    } else if (kind === 'dsc') {
+      const T = 250 + 100 * x;
+      lines.push(`${T}, ${maybeWild(1 + 0.001 * T + (T > 300 ? 0.3 : 0) + jitter(0.01))}`);
+    } else {
+      const T = 310 + 60 * x;
+      lines.push(`${T}, ${maybeWild(Math.pow(10, -14 + 1000 / (T - 240) + jitter(0.1)))}`);
+    }
+  }
+  const [head, header] = BIG_HEAD[kind];
+  return `\`\`\`${head}---\n${header}\n${lines.join('\n')}\n\`\`\`\n`;
+}
+
+describe(`analyses on ${BIG_ROWS} rows`, () => {
+  for (const kind of ['ramp', 'isotherm', 'dsc', 'relaxation'] as const) {
+    it(`${kind}: no internal error${kind === 'relaxation' ? ', and the material takes its VFT law from it' : ''}`, () => {
+      const nb = new Notebook(new InMemoryHost());
+      nb.setFile('m.md', (kind === 'relaxation' ? MATERIAL_WITHOUT_VFT : MATERIAL) + DEPOSITION + (kind === 'relaxation' ? SMALL_ISOTHERM : ''));
+      nb.setFile('t.md', bigTable(kind, BIG_CASE));
+      const report = toJsonReport(nb.analyze());
+      for (const f of report.files) for (const b of f.blocks) for (const d of b.diagnostics) assert.notEqual(d.code, 'internal.error', d.message);
+      const block = report.files.find((f) => f.path === 't.md')!.blocks[0];
+      assert.equal(block.kind, kind);
+      if (kind === 'relaxation') {
+        const tau = report.files.find((f) => f.path === 'm.md')!.blocks.find((b) => b.id === 'I-2')!.results.tau_alpha;
+        assert.match(tau?.method ?? '', /fit of relaxation block X-1/);
+      }
+    });
+  }
 });

@@ -27,6 +27,34 @@ describe('scanFencedBlocks', () => {
     }
   });
 
+  // Shapes from the pathological-input tests of the CommonMark reference implementation (cmark,
+  // test/pathological_tests.py: "nested block quotes", "deeply nested lists"), small enough for
+  // remark and with a fence to find: the scanner remembers what it has seen on a line (the next
+  // non-space character, a thematic break, the containers a blank line continues) and must still
+  // agree with remark. Their cost at full size is in linearCost.test.ts.
+  describe('agrees with remark on deeply nested containers', () => {
+    const cases: Record<string, string> = {
+      'list markers on one line': '- '.repeat(300) + '```ramp R-1\n' + ' \n'.repeat(3) + '```\n',
+      'block-quote markers on one line': '> '.repeat(300) + '```ramp R-1\n' + '> '.repeat(300) + 'x\n',
+      'ordered markers on one line': '1. '.repeat(200) + '```\n\n' + ' '.repeat(600) + 'x\n',
+      'nested list, one item per line': Array.from({ length: 60 }, (_, i) => '  '.repeat(i) + '* a\n').join('') + '  '.repeat(60) + '```\n' + '  '.repeat(60) + 'x\n',
+      'blank lines with spaces and tabs after a deep list': '- '.repeat(50) + '```\n' + ['', ' ', '   \t', '\t\t\t', ' '.repeat(120)].join('\n') + '\n```\n',
+      'blank lines after a deep list with an empty item': '- '.repeat(40) + '-\n\n```\n\n',
+      'block quotes and lists mixed': '> - '.repeat(80) + '```\n\n' + '> - '.repeat(80) + '~~~\n',
+      'a long run of list markers, thematic break after it': '- '.repeat(200) + '-\n```\n',
+      'a paragraph interrupted by many list markers': 'para\n' + '- '.repeat(200) + '```\n',
+    };
+    for (const [name, text] of Object.entries(cases)) {
+      it(name, () => assert.deepEqual(mine(text), oracleFencedBlocks(text)));
+    }
+  });
+
+  it('opens no backtick fence when a backtick follows a U+2028 in the info string, as remark', () => {
+    const text = '```ramp R-1 \u2028`x\n```\n';
+    assert.deepEqual(mine(text), oracleFencedBlocks(text));
+    assert.equal(scanFencedBlocks(text)[0]?.span.start, 16);
+  });
+
   it('finds a data block with its info string split into lang and meta', () => {
     const [b] = scanFencedBlocks('text\n\n```deposition D-17\nmaterial: x\n```\n');
     assert.equal(b.lang, 'deposition');

@@ -1,16 +1,19 @@
 import assert from 'node:assert/strict';
 import { InMemoryHost, Notebook, toJsonReport } from '../../extension/core/index.js';
 import { gaussian } from '../support/random.js';
+import { assertOnRow } from '../support/rowRange.js';
 import { DEPOSITION_BLOCK, MATERIAL_BLOCK, tableBlock } from '../support/synthetic.js';
 
-// CHECKS.md §2.1 worked case [computed, exact]: (A, B, T0) = (−14, 700 K, 200 K), Tg = 243.75 K;
+// Worked case, exact by algebra [computed], decadic VFT: (A, B, T0) = (−14, 700 K, 200 K), Tg = 243.75 K;
 // at Tg + 10 K τ = 0.10550081484 s, and a 1.0e4 s transformation gives t/τα = 94786.0.
 const VFT = 'vft:\n  log10_tau0: -14\n  B: 700 K\n  T0: 200 K\n';
+
+const fileText = (rows: number[][], meta = ''): string => DEPOSITION_BLOCK('D-1', 210) + tableBlock('isotherm', 'I-1', `film: D-1\ntemperature: 253.75 K\n${meta}`, 't/s, T/K, h/nm', rows, 9);
 
 function isotherm(rows: number[][], meta = ''): ReturnType<typeof toJsonReport>['files'][number]['blocks'][number] {
   const nb = new Notebook(new InMemoryHost());
   nb.setFile('m.md', MATERIAL_BLOCK(243.75, VFT));
-  nb.setFile('d.md', DEPOSITION_BLOCK('D-1', 210) + tableBlock('isotherm', 'I-1', `film: D-1\ntemperature: 253.75 K\n${meta}`, 't/s, T/K, h/nm', rows, 9));
+  nb.setFile('d.md', fileText(rows, meta));
   return toJsonReport(nb.analyze(['d.md'])).files[0].blocks[1];
 }
 
@@ -29,7 +32,8 @@ describe('isotherm analysis', () => {
     const b = isotherm(hold());
     assert.ok(Math.abs(b.results.onset_time.value - 7000) < 1e-3, `t1 ${b.results.onset_time.value}`);
     assert.ok(Math.abs(b.results.transformation_time.value - 10000) < 1e-3);
-    // METHODS.md §4 worked example: a 300 nm film transforming over 3000 s gives v = 0.1 nm/s.
+    // A front of constant velocity (Swallen et al., Phys. Rev. Lett. 102, 065503 (2009)): a 300 nm
+    // film transforming over 3000 s gives v = 0.1 nm/s [computed].
     assert.ok(Math.abs(b.results.front_velocity.value - 0.1) < 1e-7);
     assert.ok(Math.abs(b.results.tau_alpha.value - 0.10550081484) < 1e-9);
     assert.ok(Math.abs(b.results.stability_ratio.value - 94786.0) < 0.5, `S ${b.results.stability_ratio.value}`);
@@ -61,6 +65,7 @@ describe('isotherm analysis', () => {
     const b = isotherm(rows);
     const d = b.diagnostics.find((x) => x.code === 'isotherm.temperature-drift');
     assert.ok(d);
+    assertOnRow(d, fileText(rows), 't/s, T/K, h/nm', 100);
   });
 });
 

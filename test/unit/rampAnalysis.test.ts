@@ -1,17 +1,21 @@
 import assert from 'node:assert/strict';
 import { InMemoryHost, Notebook, toJsonReport, type JsonReport } from '../../extension/core/index.js';
 import { gaussian } from '../support/random.js';
+import { assertOnRow } from '../support/rowRange.js';
 import { DEPOSITION_BLOCK, MATERIAL_BLOCK, tableBlock } from '../support/synthetic.js';
+
+const fileText = (ramp: string, tsub = 270): string => DEPOSITION_BLOCK('D-1', tsub) + '\n' + ramp;
 
 function analyse(ramp: string, tsub = 270): JsonReport['files'][number]['blocks'][number] {
   const nb = new Notebook(new InMemoryHost());
   nb.setFile('m.md', MATERIAL_BLOCK());
-  nb.setFile('d.md', DEPOSITION_BLOCK('D-1', tsub) + '\n' + ramp);
+  nb.setFile('d.md', fileText(ramp, tsub));
   return toJsonReport(nb.analyze(['d.md'])).files[0].blocks[1];
 }
 
-// METHODS.md §3 test vector [computed]: VD h = 99.90 + 0.020(T − 300), SCL h = 101.0 + 0.070(T − 315),
-// LC h = 101.0 + 0.020(T − 315): Tf = 299.0 K and Δρ/ρ(300 K) = 0.801 %.
+// Worked case, exact by algebra [computed]: VD h = 99.90 + 0.020(T − 300), SCL h = 101.0 + 0.070(T − 315),
+// LC h = 101.0 + 0.020(T − 315): Tf (VD ∩ SCL) = 299.0 K and Δρ/ρ(300 K) = h_LC/h_VD − 1 = 0.801 %,
+// the density gain over the liquid-cooled glass of Dalal & Ediger, J. Phys. Chem. Lett. 3, 1229 (2012).
 const vd = (T: number) => 99.9 + 0.02 * (T - 300);
 const scl = (T: number) => 101.0 + 0.07 * (T - 315);
 const lc = (T: number) => 101.0 + 0.02 * (T - 315);
@@ -33,7 +37,7 @@ function cycleRows(noise: () => number = () => 0, sigma = 0): number[][] {
 }
 
 describe('ramp analysis', () => {
-  it('reproduces the METHODS.md §3 test vector: Tf = 299.0 K, Δρ/ρ(300 K) = 0.801 %, Tg = 315 K', () => {
+  it('gives Tf = 299.0 K, Δρ/ρ(300 K) = 0.801 % and Tg = 315 K for exact VD, SCL and LC lines', () => {
     const b = analyse(tableBlock('ramp', 'R-1', 'film: D-1\nrate: 1 K/min\nreference_temperature: 300 K\n', 't/s, T/K, h/nm', cycleRows(), 9));
     assert.ok(Math.abs(b.results.tg.value - 315) < 1e-6, `tg ${b.results.tg.value}`);
     assert.ok(Math.abs(b.results.tfictive.value - 299.0) < 1e-6, `tf ${b.results.tfictive.value}`);
@@ -89,9 +93,11 @@ describe('ramp analysis', () => {
   it('reports mixed heating and cooling without a time column on the row', () => {
     const rows = Array.from({ length: 60 }, (_, i) => [300 + 0.5 * i, 100]);
     rows[30] = [300 + 0.5 * 30 - 3, 100];
-    const b = analyse(tableBlock('ramp', 'R-1', 'film: D-1\nrate: 1 K/min\n', 'T/K, h/nm', rows, 9));
-    const d = b.diagnostics.find((x) => x.code === 'ramp.mixed-direction');
+    const ramp = tableBlock('ramp', 'R-1', 'film: D-1\nrate: 1 K/min\n', 'T/K, h/nm', rows, 9);
+    const d = analyse(ramp).diagnostics.find((x) => x.code === 'ramp.mixed-direction');
     assert.ok(d);
+    // Row 30 (312 K after 314.5 K) steps back; row 24 reads the same, so the line tells them apart.
+    assertOnRow(d, fileText(ramp), 'T/K, h/nm', 30);
   });
 });
 
@@ -99,8 +105,11 @@ describe('ramp flags', () => {
   it('warns of an abrupt drop on its row', () => {
     const rows = cycleRows();
     for (let i = 400; i < rows.length; i++) rows[i][2] -= 2;
-    const b = analyse(tableBlock('ramp', 'R-1', 'film: D-1\nrate: 1 K/min\n', 't/s, T/K, h/nm', rows, 9));
-    assert.ok(b.diagnostics.some((d) => d.code === 'ramp.abrupt-drop'));
+    const ramp = tableBlock('ramp', 'R-1', 'film: D-1\nrate: 1 K/min\n', 't/s, T/K, h/nm', rows, 9);
+    const d = analyse(ramp).diagnostics.find((x) => x.code === 'ramp.abrupt-drop');
+    assert.ok(d);
+    // The first lowered point, row 400.
+    assertOnRow(d, fileText(ramp), 't/s, T/K, h/nm', 400);
   });
 
   it('warns of evaporation during a hold above Tg', () => {

@@ -19,7 +19,8 @@ function materialResults(material: string, ramps: Array<[number, number]>) {
 
 describe('standard Tg of a material', () => {
   it('interpolates Tg against log q to 10 K/min', () => {
-    // METHODS.md §1 check [computed]: a VFT liquid with Tg(10 K/min) = 315 K, m = 80 gives
+    // q·τ(Tg) held constant, as in Moynihan et al., J. Am. Ceram. Soc. 59, 12 (1976) [from memory];
+    // computed for a VFT liquid with Tg(10 K/min) = 315 K, m = 80, log10 τ∞ = −14 [computed]:
     // Tg = 308.0, 311.3, 315.0, 319.2 K at 0.1, 1, 10 and 100 K/min.
     const b = materialResults(MATERIAL_BLOCK(315), [[0.1, 308.0], [1, 311.3], [10, 315.0], [100, 319.2]]);
     const r = b.results.standard_tg;

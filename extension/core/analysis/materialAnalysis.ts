@@ -8,6 +8,7 @@
 import { at, type Diagnostic } from '../model/diagnostic.js';
 import { messages } from '../model/messages.js';
 import type { ParsedBlock } from '../block/parseBlock.js';
+import { extent } from '../numeric/extent.js';
 import { result, type ResultValue } from '../model/result.js';
 import type { Analysis, AnalysisContext } from './context.js';
 import { standardTg } from './standardTg.js';
@@ -38,7 +39,7 @@ export function materialVft(block: ParsedBlock, ctx: AnalysisContext): { p: VftP
     const r = ctx.resultsOf(relax);
     if (r.vft_log10_tau0 && r.vft_B && r.vft_T0) {
       const T = relax.table?.byRole.get('temperature')?.values;
-      const range: [number, number] | undefined = T && T.length > 0 ? [Math.min(...T), Math.max(...T)] : undefined;
+      const range: [number, number] | undefined = T && T.length > 0 ? extent(T) : undefined;
       return { p: { log10Tau0: r.vft_log10_tau0.value, B: r.vft_B.value, T0: r.vft_T0.value }, source: `fit of relaxation block ${relax.id ?? ''}`, range };
     }
   }

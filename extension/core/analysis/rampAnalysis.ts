@@ -123,9 +123,8 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext, choices: R
   const segments = segmentScan(curve.T, time, nominal);
   const lines: { -readonly [K in keyof RampLines]: RampLines[K] } = { segments };
 
-  for (const s of segments) {
-    if (s.backStep !== undefined && !time) note(messages.rampMixedDirection(s.direction), block.rowSpan(s.backStep));
-  }
+  const backSteps = time ? [] : segments.filter((s) => s.backStep !== undefined);
+  if (backSteps.length > 0) note(messages.rampMixedDirection(backSteps[0].direction, backSteps.length), block.rowSpan(backSteps[0].backStep!));
   if (nominal) {
     const off = segments.find((s) => s.direction !== 'isothermal' && s.measuredRate !== undefined && Math.abs(Math.abs(s.measuredRate) - nominal) > 0.1 * nominal);
     if (off?.measuredRate !== undefined) note(messages.rampRateMismatch(Math.abs(off.measuredRate), nominal), block.spanOf('/rate'));

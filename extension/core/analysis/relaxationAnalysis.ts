@@ -10,6 +10,7 @@
 import { at, type Diagnostic } from '../model/diagnostic.js';
 import { messages } from '../model/messages.js';
 import type { ParsedBlock } from '../block/parseBlock.js';
+import { extent } from '../numeric/extent.js';
 import { fitVft, type VftFit } from '../numeric/vftFit.js';
 import { result, type ResultValue } from '../model/result.js';
 import type { Analysis, AnalysisContext } from './context.js';
@@ -44,7 +45,9 @@ export function relaxationFit(block: ParsedBlock): RelaxationFit | null {
     }
   }
   const fit = fitVft(xs, ys);
-  return fit ? { fit, tmin: Math.min(...xs), tmax: Math.max(...xs) } : null;
+  if (!fit) return null;
+  const [tmin, tmax] = extent(xs);
+  return { fit, tmin, tmax };
 }
 
 export function analyzeRelaxation(block: ParsedBlock, _ctx: AnalysisContext): Analysis {

@@ -26,6 +26,64 @@ export interface Segment {
 
 const MIN_RUN = 5;
 
+/** Point labels are indices into this list. */
+const DIRECTIONS: readonly Direction[] = ['isothermal', 'heating', 'cooling'];
+const ISOTHERMAL = 0;
+const HEATING = 1;
+const COOLING = 2;
+
+interface Run {
+  direction: Direction;
+  start: number;
+  end: number;
+}
+
+/** Maximal runs of equal labels: run r covers [bounds[r], bounds[r + 1]). */
+function runBounds(labels: Uint8Array): Int32Array {
+  const bounds = new Int32Array(labels.length + 1);
+  let count = 0;
+  for (let i = 1; i < labels.length; i++) if (labels[i] !== labels[i - 1]) bounds[++count] = i;
+  bounds[++count] = labels.length;
+  return bounds.subarray(0, count + 1);
+}
+
+/**
+ * Merges every run shorter than MIN_RUN into the run before it (at the start, into the run after
+ * it), first short run first, joining neighbours that end up with the same direction; a single
+ * run is kept whatever its length. One pass with a stack: the runs already on the stack are long
+ * and never change again, except the top one, which absorbs what follows. Only the runs it keeps
+ * become objects.
+ */
+function mergeShortRuns(labels: Uint8Array, bounds: Int32Array): Run[] {
+  const out: Run[] = [];
+  const count = bounds.length - 1;
+  // The run under consideration: the next run, or a short first run joined to those after it.
+  let label = labels[bounds[0]];
+  let start = bounds[0];
+  let end = bounds[1];
+  for (let k = 0; k < count; ) {
+    const top = out[out.length - 1];
+    const direction = DIRECTIONS[label];
+    if (top && top.direction === direction) top.end = end;
+    else if (end - start >= MIN_RUN) out.push({ direction, start, end });
+    else if (top) top.end = end;
+    else if (k + 1 < count) {
+      // A short first run joins the run after it, which may then be short in turn.
+      k++;
+      label = labels[bounds[k]];
+      end = bounds[k + 1];
+      continue;
+    } else out.push({ direction, start, end });
+    k++;
+    if (k < count) {
+      label = labels[bounds[k]];
+      start = bounds[k];
+      end = bounds[k + 1];
+    }
+  }
+  return out;
+}
+
 function localSlopes(t: ArrayLike<number>, T: ArrayLike<number>, half: number): Float64Array {
   const n = T.length;
   const out = new Float64Array(n);
@@ -54,49 +112,23 @@ function localSlopes(t: ArrayLike<number>, T: ArrayLike<number>, half: number): 
 export function segmentScan(T: ArrayLike<number>, t: ArrayLike<number> | null, nominalRateKPerMin: number | null): Segment[] {
   const n = T.length;
   if (n < 2) return [{ direction: 'isothermal', start: 0, end: n }];
-  const labels: Direction[] = new Array(n);
+  const labels = new Uint8Array(n);
   if (t) {
     const slopes = localSlopes(t, T, 3);
     let eps: number;
     if (nominalRateKPerMin && nominalRateKPerMin > 0) eps = (0.1 * nominalRateKPerMin) / 60;
     else {
-      const abs = Array.from(slopes, Math.abs).sort((a, b) => a - b);
+      const abs = Float64Array.from(slopes, Math.abs).sort();
       eps = 0.1 * abs[Math.floor(abs.length / 2)];
     }
-    for (let i = 0; i < n; i++) labels[i] = slopes[i] > eps ? 'heating' : slopes[i] < -eps ? 'cooling' : 'isothermal';
+    for (let i = 0; i < n; i++) labels[i] = slopes[i] > eps ? HEATING : slopes[i] < -eps ? COOLING : ISOTHERMAL;
   } else {
     for (let i = 0; i < n; i++) {
       const d = T[Math.min(n - 1, i + 3)] - T[Math.max(0, i - 3)];
-      labels[i] = d > 0.05 ? 'heating' : d < -0.05 ? 'cooling' : 'isothermal';
+      labels[i] = d > 0.05 ? HEATING : d < -0.05 ? COOLING : ISOTHERMAL;
     }
   }
-  // Runs, then merge short runs into the previous one (or the next, at the start).
-  let runs: Array<{ direction: Direction; start: number; end: number }> = [];
-  for (let i = 0; i < n; i++) {
-    const last = runs[runs.length - 1];
-    if (last && last.direction === labels[i]) last.end = i + 1;
-    else runs.push({ direction: labels[i], start: i, end: i + 1 });
-  }
-  let changed = true;
-  while (changed && runs.length > 1) {
-    changed = false;
-    for (let r = 0; r < runs.length; r++) {
-      if (runs[r].end - runs[r].start >= MIN_RUN) continue;
-      const target = r > 0 ? r - 1 : r + 1;
-      runs[target] = { direction: runs[target].direction, start: Math.min(runs[target].start, runs[r].start), end: Math.max(runs[target].end, runs[r].end) };
-      runs.splice(r, 1);
-      changed = true;
-      break;
-    }
-    const merged: typeof runs = [];
-    for (const run of runs) {
-      const last = merged[merged.length - 1];
-      if (last && last.direction === run.direction) last.end = run.end;
-      else merged.push({ ...run });
-    }
-    runs = merged;
-  }
-  return runs.map((run) => {
+  return mergeShortRuns(labels, runBounds(labels)).map((run) => {
     let backStep: number | undefined;
     if (run.direction !== 'isothermal') {
       const sign = run.direction === 'heating' ? 1 : -1;

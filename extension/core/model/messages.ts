@@ -126,8 +126,15 @@ export const messages = {
 
   // Ramps
   rampNoThickness: () => msg('table.missing-column', 'error', 'The ramp table needs a temperature column (T) and a thickness (h) or specific volume (V) column.'),
-  rampMixedDirection: (direction: string) =>
-    msg('ramp.mixed-direction', 'error', `The temperature steps back by more than 0.1 K inside a ${direction} segment: heating and cooling are mixed. Add a time column or split the scan.`),
+  /** One diagnostic for the whole scan, on the first back-step; `count` segments have one. */
+  rampMixedDirection: (direction: string, count = 1) =>
+    msg(
+      'ramp.mixed-direction',
+      'error',
+      count > 1
+        ? `The temperature steps back by more than 0.1 K inside ${count} heating or cooling segments, first in this ${direction} segment: heating and cooling are mixed. Add a time column or split the scan.`
+        : `The temperature steps back by more than 0.1 K inside a ${direction} segment: heating and cooling are mixed. Add a time column or split the scan.`,
+    ),
   rampRateMismatch: (measured: number, nominal: number) =>
     msg('ramp.rate-mismatch', 'warning', `The measured rate is ${fmt(measured, 3)} K/min, more than 10 % from the stated ${fmt(nominal, 3)} K/min.`),
   rampNoCooling: () => msg('ramp.no-cooling', 'info', 'This ramp has no cooling segment, so no Tg is computed: Tg is taken from cooling only (heating is biased by overshoot).'),
@@ -232,7 +239,7 @@ export const messages = {
 
   // Results blocks
   resultsStale: (id: string) =>
-    msg('results.stale', 'warning', `These frozen results no longer match the inputs of "${id}"; the data or metadata changed since they were written.`),
+    msg('results.stale', 'warning', `These recorded figures no longer match the inputs of "${id}": its data or metadata changed since they were written. Refresh them (quick fix).`),
 
   // Host
   fileUnreadable: (detail: string) => msg('file.unreadable', 'error', `The notebook file cannot be read: ${detail}.`),

@@ -9,11 +9,17 @@
  * parameters is σ²(JᵀJ)⁻¹ with the Jacobian of the nonlinear model at the optimum
  * (∂h/∂t₁ = −b₂ for t > t₁, ∂h/∂t₂ = −b₃ for t > t₂).
  *
+ * Cost: linear in the number of points, with a bounded number of evaluations (a 40 × 40 grid on
+ * at most 400 points, Brent searches, at most 100 Levenberg–Marquardt iterations). Every
+ * evaluation writes the design into one typed-array workspace (qrWorkspace.ts), so it allocates
+ * nothing per point, and gives the numbers that qr.ts and levenbergMarquardt.ts give.
+ *
  * Policy: fewer than 8 points, or a time span of zero, gives null.
  */
 import { minimiseBrent } from './brent.js';
-import { levenbergMarquardt } from './levenbergMarquardt.js';
-import { inverseNormalMatrix, solveLeastSquares } from './qr.js';
+import { columnLevenbergMarquardt } from './columnLevenbergMarquardt.js';
+import { inverseNormalMatrix } from './qr.js';
+import { QrWorkspace } from './qrWorkspace.js';
 
 export interface ThreeSegmentFit {
   readonly a: number;
@@ -30,22 +36,41 @@ export interface ThreeSegmentFit {
   readonly pointsAfter: number;
 }
 
-function linearFit(t: ArrayLike<number>, h: ArrayLike<number>, t1: number, t2: number): { sse: number; beta: number[] } | null {
-  const rows: number[][] = [];
-  const y: number[] = [];
-  for (let i = 0; i < t.length; i++) {
-    rows.push([1, t[i], Math.max(t[i] - t1, 0), Math.max(t[i] - t2, 0)]);
-    y.push(h[i]);
+/**
+ * The linear fit for fixed breakpoints over the first m points, in a workspace the whole fit
+ * shares: each of the many evaluations costs O(m) and allocates nothing per point.
+ */
+function linearFit(work: QrWorkspace, t: Float64Array, h: Float64Array, m: number, t1: number, t2: number): { sse: number; beta: number[] } | null {
+  const A = work.design;
+  const c = work.capacity;
+  for (let i = 0; i < m; i++) {
+    A[i] = 1;
+    A[c + i] = t[i];
+    A[2 * c + i] = Math.max(t[i] - t1, 0);
+    A[3 * c + i] = Math.max(t[i] - t2, 0);
+    work.rhs[i] = h[i];
   }
-  const s = solveLeastSquares(rows, y);
+  const s = work.solve(m, 4);
   if (!s) return null;
   let sse = 0;
-  for (let i = 0; i < t.length; i++) {
-    const r = rows[i];
-    const e = y[i] - (s.x[0] + s.x[1] * r[1] + s.x[2] * r[2] + s.x[3] * r[3]);
+  for (let i = 0; i < m; i++) {
+    const e = h[i] - (s.x[0] + s.x[1] * t[i] + s.x[2] * Math.max(t[i] - t1, 0) + s.x[3] * Math.max(t[i] - t2, 0));
     sse += e * e;
   }
   return { sse, beta: s.x };
+}
+
+/** The model's Jacobian at (a, b1, b2, b3, t1, t2), column-major, n rows. */
+function writeJacobian(p: readonly number[], t: Float64Array, n: number, out: Float64Array): void {
+  for (let i = 0; i < n; i++) {
+    const ti = t[i];
+    out[i] = 1;
+    out[n + i] = ti;
+    out[2 * n + i] = Math.max(ti - p[4], 0);
+    out[3 * n + i] = Math.max(ti - p[5], 0);
+    out[4 * n + i] = ti > p[4] ? -p[2] : 0;
+    out[5 * n + i] = ti > p[5] ? -p[3] : 0;
+  }
 }
 
 export function fitThreeSegments(tIn: ArrayLike<number>, hIn: ArrayLike<number>): ThreeSegmentFit | null {
@@ -64,12 +89,14 @@ export function fitThreeSegments(tIn: ArrayLike<number>, hIn: ArrayLike<number>)
     tmax = Math.max(tmax, v);
   }
   if (!(tmax > tmin)) return null;
+  const work = new QrWorkspace(n, 6);
   const stride = Math.max(1, Math.ceil(n / 400));
-  const ts: number[] = [];
-  const hs: number[] = [];
-  for (let i = 0; i < n; i += stride) {
-    ts.push(t[i]);
-    hs.push(h[i]);
+  const thinned = Math.ceil(n / stride);
+  const ts = new Float64Array(thinned);
+  const hs = new Float64Array(thinned);
+  for (let i = 0, k = 0; i < n; i += stride, k++) {
+    ts[k] = t[i];
+    hs[k] = h[i];
   }
   const grid = 40;
   const span = tmax - tmin;
@@ -78,40 +105,45 @@ export function fitThreeSegments(tIn: ArrayLike<number>, hIn: ArrayLike<number>)
     for (let j = i + 1; j <= grid; j++) {
       const t1 = tmin + (span * i) / (grid + 1);
       const t2 = tmin + (span * j) / (grid + 1);
-      const f = linearFit(ts, hs, t1, t2);
+      const f = linearFit(work, ts, hs, thinned, t1, t2);
       if (f && f.sse < best.sse) best = { sse: f.sse, t1, t2 };
     }
   }
   if (!Number.isFinite(best.t1)) return null;
   let { t1, t2 } = best;
   const cell = span / (grid + 1);
-  const sseAt = (a: number, b: number): number => (a < b ? (linearFit(t, h, a, b)?.sse ?? Infinity) : Infinity);
+  const sseAt = (a: number, b: number): number => (a < b ? (linearFit(work, t, h, n, a, b)?.sse ?? Infinity) : Infinity);
   for (let round = 0; round < 2; round++) {
     t1 = minimiseBrent((x) => sseAt(x, t2), Math.max(tmin, t1 - cell), Math.min(t2, t1 + cell), 1e-9).x;
     t2 = minimiseBrent((x) => sseAt(t1, x), Math.max(t1, t2 - cell), Math.min(tmax, t2 + cell), 1e-9).x;
   }
-  const start = linearFit(t, h, t1, t2);
+  const start = linearFit(work, t, h, n, t1, t2);
   if (!start) return null;
-  const model = (p: readonly number[], ti: number): number => p[0] + p[1] * ti + p[2] * Math.max(ti - p[4], 0) + p[3] * Math.max(ti - p[5], 0);
-  const lm = levenbergMarquardt(
+  const lm = columnLevenbergMarquardt(
     {
-      residuals: (p) => (p[4] < p[5] ? Array.from(t, (ti, i) => model(p, ti) - h[i]) : [Infinity]),
-      jacobian: (p) => Array.from(t, (ti) => [1, ti, Math.max(ti - p[4], 0), Math.max(ti - p[5], 0), ti > p[4] ? -p[2] : 0, ti > p[5] ? -p[3] : 0]),
+      rows: n,
+      residuals: (p, out) => {
+        if (!(p[4] < p[5])) return false;
+        for (let i = 0; i < n; i++) out[i] = p[0] + p[1] * t[i] + p[2] * Math.max(t[i] - p[4], 0) + p[3] * Math.max(t[i] - p[5], 0) - h[i];
+        return true;
+      },
+      jacobian: (p, out) => writeJacobian(p, t, n, out),
     },
     [...start.beta, t1, t2],
-    { maxIterations: 100 },
+    { maxIterations: 100, covariance: false },
   );
   if (lm.sse < start.sse && lm.parameters[4] < lm.parameters[5]) {
     t1 = lm.parameters[4];
     t2 = lm.parameters[5];
   }
-  const f = linearFit(t, h, t1, t2);
+  const f = linearFit(work, t, h, n, t1, t2);
   if (!f) return null;
   const [a, b1, b2, b3] = f.beta;
   const dof = n - 6;
   const sigma2 = dof > 0 ? f.sse / dof : 0;
-  const J = Array.from(t, (ti) => [1, ti, Math.max(ti - t1, 0), Math.max(ti - t2, 0), ti > t1 ? -b2 : 0, ti > t2 ? -b3 : 0]);
-  const qr = solveLeastSquares(J, new Array<number>(n).fill(0));
+  writeJacobian([a, b1, b2, b3, t1, t2], t, work.capacity, work.design);
+  work.rhs.fill(0);
+  const qr = work.solve(n, 6);
   const covariance = qr ? inverseNormalMatrix(qr.r).map((row) => row.map((v) => v * sigma2)) : null;
   let pointsAfter = 0;
   for (const v of t) if (v > t2) pointsAfter++;

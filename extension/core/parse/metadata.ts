@@ -3,8 +3,11 @@
  * diagnostic points at the key or value it is about. Spans here are in **body offsets** (see
  * BodyMap); callers map them to the document.
  *
- * Policy: never throws. Empty text is an empty map. YAML errors become diagnostics; whatever
- * could still be read is kept.
+ * Policy: never throws and never logs: the library's own console warnings are off (`logLevel:
+ * 'silent'`), and what it would warn about becomes a problem here. Empty text is an empty map.
+ * YAML errors become diagnostics; whatever could still be read is kept. A key that is a list, a
+ * map or an alias (`[a, b]: 1`, `? {a: 1}`) is a problem at the key; the data keep it as the
+ * library stringifies it.
  */
 import { isMap, isScalar, isSeq, parseDocument, type Node as YamlNode } from 'yaml';
 import type { Span } from '../text/positions.js';
@@ -44,7 +47,7 @@ export function parseMetadata(text: string): Metadata {
   const spans = new Map<string, EntrySpans>();
   const problems: YamlProblem[] = [];
   if (text.trim().length === 0) return { data: {}, spans, problems, notAMap: false };
-  const doc = parseDocument(text, { uniqueKeys: true, prettyErrors: false, strict: true });
+  const doc = parseDocument(text, { uniqueKeys: true, prettyErrors: false, strict: true, logLevel: 'silent' });
   for (const e of doc.errors) {
     const start = Math.min(e.pos[0], text.length);
     problems.push({ message: e.message.split('\n')[0], span: { start, end: Math.min(Math.max(start, e.pos[1]), text.length) } });
@@ -64,6 +67,9 @@ export function parseMetadata(text: string): Metadata {
         const keyText = isScalar(keyNode) ? String(keyNode.value) : String(keyNode);
         const child = `${pointer}/${escapePointer(keyText)}`;
         const keySpan = spanOf(keyNode, whole);
+        if (keyNode !== null && !isScalar(keyNode)) {
+          problems.push({ message: 'a key is a list, a map or an alias; write a plain name before the colon', span: keySpan });
+        }
         const valueNode = pair.value as YamlNode | null;
         spans.set(child, { key: keySpan, value: valueNode ? spanOf(valueNode, keySpan) : { start: keySpan.end, end: keySpan.end } });
         if (valueNode) walk(valueNode, child);

@@ -105,7 +105,8 @@ interface Cell {
   readonly end: number;
 }
 
-const NUMBER = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
+// Each digit can belong to one place only (no `\d+\.?\d*`), so a long bad cell fails in linear time.
+const NUMBER = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
 const DECIMAL_COMMA = /^[+-]?\d+,\d+(?:[eE][+-]?\d+)?$/;
 const NON_FINITE = /^[+-]?(?:nan|inf|infinity)$/i;
 const MAX_PROBLEMS = 200;
@@ -133,25 +134,89 @@ function splitCells(text: string, delimiter: Table['delimiter']): Cell[] {
   return cells;
 }
 
-function headerCells(text: string, delimiter: Table['delimiter']): Cell[] {
-  if (delimiter !== 'whitespace') return splitCells(text, delimiter);
+const WHITE = /\s/;
+/** What `.` in a pattern does not match. */
+const LINE_TERMINATOR = /[\n\r\u2028\u2029]/;
+const isOpen = (c: string | undefined): boolean => c === '(' || c === '[';
+const isClose = (c: string | undefined): boolean => c === ')' || c === ']';
+
+/**
+ * Header cells of a whitespace-delimited header: a word with an optional bracketed unit after
+ * it (`T (K)`, `h[nm]`), or a bracketed group alone. The cells the pattern
+ * /[^\s([]+(?:\s*[([][^)\]]*[)\]])?|[([][^)\]]*[)\]]/g finds, found in one pass: the next
+ * closing bracket is looked up once, not again from every opening bracket.
+ */
+function whitespaceHeaderCells(text: string): Cell[] {
   const cells: Cell[] = [];
-  const re = /[^\s([]+(?:\s*[([][^)\]]*[)\]])?|[([][^)\]]*[)\]]/g;
-  let m: RegExpExecArray | null;
-  while ((m = re.exec(text)) !== null) cells.push({ text: m[0], start: m.index, end: m.index + m[0].length });
+  const n = text.length;
+  let closeAt = -1; // the first closing bracket at or after the last lookup, or n when none
+  const nextClose = (from: number): number => {
+    if (closeAt < from) {
+      closeAt = from;
+      while (closeAt < n && !isClose(text[closeAt])) closeAt++;
+    }
+    return closeAt;
+  };
+  let i = 0;
+  while (i < n) {
+    const c = text[i];
+    if (!WHITE.test(c) && !isOpen(c)) {
+      let end = i + 1;
+      while (end < n && !WHITE.test(text[end]) && !isOpen(text[end])) end++;
+      let j = end;
+      while (j < n && WHITE.test(text[j])) j++;
+      if (isOpen(text[j]) && nextClose(j + 1) < n) end = nextClose(j + 1) + 1;
+      cells.push({ text: text.slice(i, end), start: i, end });
+      i = end;
+    } else if (isOpen(c) && nextClose(i + 1) < n) {
+      const end = nextClose(i + 1) + 1;
+      cells.push({ text: text.slice(i, end), start: i, end });
+      i = end;
+    } else {
+      i++;
+    }
+  }
   return cells;
+}
+
+function headerCells(text: string, delimiter: Table['delimiter']): Cell[] {
+  return delimiter === 'whitespace' ? whitespaceHeaderCells(text) : splitCells(text, delimiter);
+}
+
+/**
+ * A header cell split as /^(.+?)\s*[([](.*)[)\]]\s*$/ splits it, in one pass: the closing
+ * bracket is the last character before trailing white space, and the symbol the shortest
+ * prefix (one character at least) that white space separates from an opening bracket.
+ */
+function bracketed(text: string): { symbol: string; unit: string } | null {
+  let last = text.length - 1;
+  while (last >= 0 && WHITE.test(text[last])) last--;
+  if (last < 2 || !isClose(text[last])) return null;
+  // Neither the symbol nor the unit holds a line break: the unit's opening bracket must come
+  // after the last break before the closing one.
+  let lastBreak = -1;
+  for (let i = 0; i < last; i++) if (LINE_TERMINATOR.test(text[i])) lastBreak = i;
+  let open = 1;
+  for (let s = 1; s < last; s++) {
+    if (LINE_TERMINATOR.test(text[s - 1])) return null;
+    if (open < s) open = s;
+    while (open < last && WHITE.test(text[open])) open++;
+    if (open >= last) return null;
+    if (isOpen(text[open]) && open > lastBreak) return { symbol: text.slice(0, s), unit: text.slice(open + 1, last) };
+  }
+  return null;
 }
 
 /** Splits a header cell into its symbol and unit. */
 export function readHeader(text: string): { symbol: string; unit: string } {
-  const bracket = /^(.+?)\s*[([](.*)[)\]]\s*$/.exec(text);
+  const bracket = bracketed(text);
   const slash = text.indexOf('/');
-  if (slash > 0 && (!bracket || slash < text.indexOf(bracket[2]))) {
+  if (slash > 0 && (!bracket || slash < text.indexOf(bracket.unit))) {
     let unit = text.slice(slash + 1).trim();
     if (/^\(.*\)$/.test(unit)) unit = unit.slice(1, -1).trim();
     return { symbol: text.slice(0, slash).trim(), unit };
   }
-  if (bracket) return { symbol: bracket[1].trim(), unit: bracket[2].trim() };
+  if (bracket) return { symbol: bracket.symbol.trim(), unit: bracket.unit.trim() };
   return { symbol: text.trim(), unit: '' };
 }
 

@@ -7,7 +7,8 @@
  * °C/min) a temperature unit is a difference and only its scale applies, as math.js does.
  * `temperature_interval` (a VFT B parameter, a window width) also takes the scale only.
  *
- * Policy: `lookupUnit` never throws; an unknown unit string gives null.
+ * Policy: `lookupUnit` never throws; an unknown unit string gives null, and so does one longer
+ * than 256 characters, before any pattern runs over it. Normalising is linear in the length.
  */
 import { unit as mathUnit, type Unit } from 'mathjs';
 
@@ -58,6 +59,29 @@ export interface ResolvedUnit {
 
 const cache = new Map<string, ResolvedUnit | null>();
 
+/** Longer text is no unit; refused before normalising, so it costs nothing and is not cached. */
+const MAX_WRITTEN_LENGTH = 256;
+const WHITE = /\s/;
+
+/** Removes the white space on both sides of every `*` and `/`, in one pass over the text. */
+function tightenOperators(s: string): string {
+  let out = '';
+  let i = 0;
+  while (i < s.length) {
+    if (!WHITE.test(s[i])) {
+      out += s[i++];
+      continue;
+    }
+    let j = i;
+    while (j < s.length && WHITE.test(s[j])) j++;
+    const before = s[i - 1];
+    const after = s[j];
+    if (!(before === '*' || before === '/' || after === '*' || after === '/')) out += s.slice(i, j);
+    i = j;
+  }
+  return out;
+}
+
 /** Rewrites the notations math.js does not read into ones it does. */
 export function normaliseUnitText(text: string): string {
   let s = text.trim();
@@ -69,7 +93,7 @@ export function normaliseUnitText(text: string): string {
   s = s.replace(/\bsec\b/g, 's');
   s = s.replace(/[·⋅×]/g, '*');
   s = s.replace(/²/g, '^2').replace(/³/g, '^3').replace(/⁻¹/g, '^-1').replace(/⁻²/g, '^-2');
-  s = s.replace(/\s*\*\s*/g, '*').replace(/\s*\/\s*/g, '/');
+  s = tightenOperators(s);
   // Exponents written without a caret: "K min-1", "J g-1 K-1".
   s = s.replace(/([A-Za-z])(-\d+)(?![\d.])/g, '$1^$2');
   // A space between two unit factors is a product: "J g^-1 K^-1".
@@ -79,6 +103,7 @@ export function normaliseUnitText(text: string): string {
 
 /** Parses a unit string, or returns null when math.js does not know it. Cached. */
 export function lookupUnit(written: string): ResolvedUnit | null {
+  if (written.length > MAX_WRITTEN_LENGTH) return null;
   const hit = cache.get(written);
   if (hit !== undefined) return hit;
   let resolved: ResolvedUnit | null = null;

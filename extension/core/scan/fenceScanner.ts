@@ -10,6 +10,13 @@
  * and thematic breaks. Tabs count to the next multiple of 4 columns; a tab partly used by a
  * container marker contributes spaces to the content, as the specification requires.
  *
+ * Cost: linear in the length of the text, however deep the nesting (the tests time the shapes of
+ * cmark's pathological-input tests). A line is matched against the open
+ * containers it continues, each of which takes at least one of its characters, except on a blank
+ * line, which continues them all in one step; and no test on a line starts over for every
+ * container marker on it: patterns run from a position in the line, the next non-space character
+ * is remembered, and a line's thematic-break shape is worked out once.
+ *
  * Input policy: any string; an empty string has no blocks. The text must already have its BOM
  * removed (`stripBom`). Never throws.
  *
@@ -62,6 +69,10 @@ interface Container {
   readonly list?: ListData;
   /** An item that began with a blank line and still has no content cannot take more lines. */
   hasContent: boolean;
+  /** Index of the innermost item among this container and those it sits in, or -1. */
+  readonly itemIndex: number;
+  /** Total width (marker offset and padding) of the items among this container and those it sits in. */
+  readonly itemWidths: number;
 }
 
 interface OpenFence {
@@ -86,14 +97,14 @@ interface Leaf {
 }
 
 const CODE_INDENT = 4;
-const MAYBE_SPECIAL = /^[#`~*+_=<>0-9-]/;
-const ATX_HEADING = /^#{1,6}(?:[ \t]+|$)/;
-const FENCE_START = /^`{3,}(?!.*`)|^~{3,}/;
+/** A character that may start a block other than a paragraph. */
+const MAYBE_SPECIAL = /[#`~*+_=<>0-9-]/;
 const FENCE_CLOSE = /^(?:`{3,}|~{3,})(?=[ \t]*$)/;
-const THEMATIC_BREAK = /^(?:\*[ \t]*){3,}$|^(?:_[ \t]*){3,}$|^(?:-[ \t]*){3,}$/;
-const SETEXT_UNDERLINE = /^(?:=+|-+)[ \t]*$/;
-const BULLET_MARKER = /^[*+-]/;
-const ORDERED_MARKER = /^(\d{1,9})([.)])/;
+// Sticky patterns run at `lastIndex` in the whole line (`testAt`), so that the line is not
+// sliced again for every container marker on it.
+const ATX_HEADING = /#{1,6}(?:[ \t]+|$)/y;
+const SETEXT_UNDERLINE = /(?:=+|-+)[ \t]*$/y;
+const ORDERED_MARKER = /(\d{1,9})([.)])/y;
 
 const HTML_BLOCK_OPEN: readonly RegExp[] = [
   /./, // unused: block types count from 1
@@ -122,6 +133,44 @@ function isSpaceOrTab(c: string | undefined): boolean {
   return c === ' ' || c === '\t';
 }
 
+/** The text without leading and trailing spaces and tabs (other white space stays). */
+function trimSpaceTab(text: string): string {
+  let a = 0;
+  let b = text.length;
+  while (a < b && isSpaceOrTab(text[a])) a++;
+  while (b > a && isSpaceOrTab(text[b - 1])) b--;
+  return text.slice(a, b);
+}
+
+/** Runs a sticky pattern at a position of a line. */
+function testAt(pattern: RegExp, line: string, at: number): RegExpExecArray | null {
+  pattern.lastIndex = at;
+  return pattern.exec(line);
+}
+
+/**
+ * Where a thematic break made of `marker` may start on a line: from `from` on, the line holds
+ * only the marker, spaces and tabs, and the marker at least three times when the break starts
+ * at or before `third`.
+ */
+interface BreakShape {
+  readonly from: number;
+  readonly third: number;
+}
+
+function breakShape(line: string, marker: string): BreakShape {
+  let count = 0;
+  let third = -1;
+  let i = line.length - 1;
+  for (; i >= 0; i--) {
+    const c = line[i];
+    if (c === marker) {
+      if (++count === 3) third = i;
+    } else if (!isSpaceOrTab(c)) break;
+  }
+  return { from: i + 1, third };
+}
+
 /** Splits text into lines: [start, end) without the break, and where the next line starts. */
 function splitLines(text: string): Array<{ start: number; end: number }> {
   const lines: Array<{ start: number; end: number }> = [];
@@ -145,7 +194,9 @@ export function scanFencedBlocks(text: string): FencedBlock[] {
 
 class FenceScanner {
   private readonly blocks: FencedBlock[] = [];
-  private readonly containers: Container[] = [{ kind: 'document', hasContent: true }];
+  private readonly containers: Container[] = [{ kind: 'document', list: undefined, hasContent: true, itemIndex: -1, itemWidths: 0 }];
+  /** Indices of the containers a blank line cannot continue (block quotes, items without content), ascending. */
+  private readonly blankStops: number[] = [];
   private leaf: Leaf | null = null;
 
   // Per-line cursor, as in the specification's reference parser.
@@ -160,6 +211,10 @@ class FenceScanner {
   private indent = 0;
   private indented = false;
   private blank = false;
+  /** The last findNextNonspace scanned [nonspaceFrom, nextNonspace) of this line; -1: none yet. */
+  private nonspaceFrom = -1;
+  /** Thematic-break shapes of the current line, by marker, worked out when first asked. */
+  private breakShapes = new Map<string, BreakShape>();
   private pendingInfo = '';
   /** Containers were closed on the current line. */
   private closedThisLine = false;
@@ -176,7 +231,8 @@ class FenceScanner {
     }
     // A final line break leaves an empty last line: a block quote does not continue over it,
     // so a fence inside a quote ends with its last line, not at the end of the text.
-    const endsWithBreak = /[\r\n]$/.test(this.text);
+    const lastChar = this.text.charCodeAt(this.text.length - 1);
+    const endsWithBreak = lastChar === 10 || lastChar === 13;
     if (endsWithBreak && this.containers.some((c) => c.kind === 'quote')) this.closeLeaf(this.text.length, 'leaf', false);
     // A last line without a break that prefixes and the fence's indentation use up entirely is,
     // for remark, no line: it is not in the body; when container prefixes alone used it up,
@@ -199,26 +255,57 @@ class FenceScanner {
     return at < this.line.length ? this.line[at] : undefined;
   }
 
+  /**
+   * Finds the next non-space character from the cursor. Between the cursor and the one found
+   * last time there are only spaces and tabs, and a tab ends on the same column from wherever
+   * it is entered, so that one is reused: a run of spaces is scanned once, not once for each
+   * container that takes part of it.
+   */
   private findNextNonspace(): void {
-    let i = this.offset;
-    let cols = this.column;
-    let c: string | undefined;
-    while ((c = this.peek(i)) !== undefined) {
-      if (c === ' ') {
-        i++;
-        cols++;
-      } else if (c === '\t') {
-        i++;
-        cols += 4 - (cols % 4);
-      } else {
-        break;
+    if (this.nonspaceFrom < 0 || this.offset < this.nonspaceFrom || this.offset > this.nextNonspace) {
+      let i = this.offset;
+      let cols = this.column;
+      let c: string | undefined;
+      while ((c = this.peek(i)) !== undefined) {
+        if (c === ' ') {
+          i++;
+          cols++;
+        } else if (c === '\t') {
+          i++;
+          cols += 4 - (cols % 4);
+        } else {
+          break;
+        }
       }
+      this.nonspaceFrom = this.offset;
+      this.nextNonspace = i;
+      this.nextNonspaceColumn = cols;
     }
-    this.blank = c === undefined;
-    this.nextNonspace = i;
-    this.nextNonspaceColumn = cols;
+    this.blank = this.nextNonspace >= this.line.length;
     this.indent = this.nextNonspaceColumn - this.column;
     this.indented = this.indent >= CODE_INDENT;
+  }
+
+  /** Is the rest of the line, from `at`, a thematic break? */
+  private thematicBreakAt(at: number): boolean {
+    const marker = this.line[at];
+    if (marker !== '*' && marker !== '_' && marker !== '-') return false;
+    let shape = this.breakShapes.get(marker);
+    if (!shape) {
+      shape = breakShape(this.line, marker);
+      this.breakShapes.set(marker, shape);
+    }
+    return at >= shape.from && at <= shape.third;
+  }
+
+  /** The fence that opens at `at`: three or more backticks with none after them, or tildes. */
+  private fenceAt(at: number): string | null {
+    const c = this.line[at];
+    if (c !== '`' && c !== '~') return null;
+    let end = at;
+    while (this.line[end] === c) end++;
+    if (end - at < 3 || (c === '`' && this.line.indexOf('`', end) >= 0)) return null;
+    return this.line.slice(at, end);
   }
 
   private advanceNextNonspace(): void {
@@ -261,13 +348,24 @@ class FenceScanner {
     this.column = 0;
     this.partiallyConsumedTab = false;
     this.blank = false;
+    this.nonspaceFrom = -1;
+    if (this.breakShapes.size > 0) this.breakShapes = new Map();
     const leafBefore = this.leaf?.kind ?? null;
     this.closedThisLine = false;
 
     // Phase 1: which open containers does this line continue?
     let matched = 1;
-    for (; matched < this.containers.length; matched++) {
-      if (!this.continues(this.containers[matched])) break;
+    this.findNextNonspace();
+    if (this.blank && this.containers.length > 1) {
+      // A blank line continues every list, and every item with content, up to the first block
+      // quote or item without content; each item takes up to its width of the white space, so
+      // together they take up to the sum of their widths, in one step however deep the nesting.
+      matched = this.blankStops.length > 0 ? this.blankStops[0] : this.containers.length;
+      this.advanceOffset(Math.min(this.indent, this.containers[matched - 1].itemWidths), true);
+    } else {
+      for (; matched < this.containers.length; matched++) {
+        if (!this.continues(this.containers[matched])) break;
+      }
     }
     const allContainersMatched = matched === this.containers.length;
 
@@ -291,8 +389,9 @@ class FenceScanner {
     for (;;) {
       this.findNextNonspace();
       const container = this.containers[containerIndex];
-      const rest = this.line.slice(this.nextNonspace);
-      if (!this.indented && !MAYBE_SPECIAL.test(rest)) {
+      const at = this.nextNonspace;
+      const first = this.line[at];
+      if (!this.indented && !(first !== undefined && MAYBE_SPECIAL.test(first))) {
         this.advanceNextNonspace();
         break;
       }
@@ -300,26 +399,28 @@ class FenceScanner {
       // The paragraph is "the container" when it and every container above it matched.
       const inParagraph = paragraphOpen && containerIndex === this.containers.length - 1;
 
-      if (!this.indented && rest[0] === '>') {
+      if (!this.indented && first === '>') {
         this.advanceNextNonspace();
         this.advanceOffset(1, false);
         if (isSpaceOrTab(this.peek(this.offset))) this.advanceOffset(1, true);
         this.prepareChild(containerIndex, false, 'container');
-        this.containers.push({ kind: 'quote', hasContent: true });
+        this.pushContainer('quote');
         containerIndex = this.containers.length - 1;
         continue;
       }
-      if (!this.indented && ATX_HEADING.test(rest)) {
+      if (!this.indented && first === '#' && testAt(ATX_HEADING, this.line, at)) {
         this.prepareChild(containerIndex, false);
         return;
       }
-      const fence = !this.indented ? FENCE_START.exec(rest) : null;
+      const fence = !this.indented ? this.fenceAt(at) : null;
       if (fence) {
         this.prepareChild(containerIndex, false);
-        this.openFence(fence[0]);
+        this.openFence(fence);
         return;
       }
-      if (!this.indented && rest[0] === '<') {
+      if (!this.indented && first === '<') {
+        // Once a line at most: an HTML block opens here, or no other block start can.
+        const rest = this.line.slice(at);
         let htmlType = 0;
         for (let t = 1; t <= 7; t++) {
           if (HTML_BLOCK_OPEN[t].test(rest) && (t < 7 || !paragraphOpen)) {
@@ -334,11 +435,11 @@ class FenceScanner {
           return;
         }
       }
-      if (!this.indented && inParagraph && SETEXT_UNDERLINE.test(rest)) {
+      if (!this.indented && inParagraph && testAt(SETEXT_UNDERLINE, this.line, at)) {
         this.closeLeaf(this.lineStart);
         return;
       }
-      if (!this.indented && THEMATIC_BREAK.test(rest)) {
+      if (!this.indented && this.thematicBreakAt(at)) {
         this.prepareChild(containerIndex, false);
         return;
       }
@@ -352,11 +453,11 @@ class FenceScanner {
           this.closeLeaf(this.lineStart);
           const parent = this.containers[this.containers.length - 1];
           if (parent.kind !== 'list' || !listsMatch(parent.list!, listData)) {
-            if (parent.kind === 'list') this.containers.pop();
+            if (parent.kind === 'list') this.popContainers(this.containers.length - 1);
             this.markContent();
-            this.containers.push({ kind: 'list', list: listData, hasContent: true });
+            this.pushContainer('list', listData, true);
           }
-          this.containers.push({ kind: 'item', list: listData, hasContent: false });
+          this.pushContainer('item', listData, false);
           containerIndex = this.containers.length - 1;
           continue;
         }
@@ -392,7 +493,7 @@ class FenceScanner {
     this.truncateTo(index, cause);
     this.closeLeaf(this.lineStart);
     if (!isItem && this.containers.length > 1 && this.containers[this.containers.length - 1].kind === 'list') {
-      this.containers.pop();
+      this.popContainers(this.containers.length - 1);
       this.closedThisLine = true;
     }
     this.markContent();
@@ -404,9 +505,10 @@ class FenceScanner {
     const fenceStart = this.lineStart + this.offset;
     this.advanceOffset(marker.length, false);
     const raw = this.line.slice(this.offset);
-    this.pendingInfo = raw.replace(/^[ \t]+/, '');
-    const lead = raw.length - raw.replace(/^[ \t]+/, '').length;
-    const rawInfo = raw.replace(/^[ \t]+|[ \t]+$/g, '');
+    let lead = 0;
+    while (isSpaceOrTab(raw[lead])) lead++;
+    this.pendingInfo = raw.slice(lead);
+    const rawInfo = trimSpaceTab(raw);
     const infoStart = this.lineStart + this.offset + lead;
     this.leaf = {
       kind: 'fenced',
@@ -534,13 +636,27 @@ class FenceScanner {
 
   /** Marks the innermost item as having content (an empty item closes at its first blank). */
   private markContent(): void {
-    for (let i = this.containers.length - 1; i >= 1; i--) {
-      const c = this.containers[i];
-      if (c.kind === 'item') {
-        c.hasContent = true;
-        return;
-      }
-    }
+    const item = this.containers[this.containers.length - 1].itemIndex;
+    if (item < 1 || this.containers[item].hasContent) return;
+    this.containers[item].hasContent = true;
+    const stop = this.blankStops.lastIndexOf(item);
+    if (stop === this.blankStops.length - 1) this.blankStops.pop();
+    else if (stop >= 0) this.blankStops.splice(stop, 1);
+  }
+
+  private pushContainer(kind: ContainerKind, list?: ListData, hasContent = true): void {
+    const index = this.containers.length;
+    const below = this.containers[index - 1];
+    const itemIndex = kind === 'item' ? index : below.itemIndex;
+    const itemWidths = below.itemWidths + (kind === 'item' && list ? list.markerOffset + list.padding : 0);
+    this.containers.push({ kind, list, hasContent, itemIndex, itemWidths });
+    if (kind === 'quote' || (kind === 'item' && !hasContent)) this.blankStops.push(index);
+  }
+
+  /** Keeps the first `length` containers. */
+  private popContainers(length: number): void {
+    this.containers.length = length;
+    while (this.blankStops.length > 0 && this.blankStops[this.blankStops.length - 1] >= length) this.blankStops.pop();
   }
 
   /** Keeps containers[0..index]; anything deeper is closed before the current line. */
@@ -554,7 +670,7 @@ class FenceScanner {
     if (index >= this.containers.length) return;
     this.closedThisLine = true;
     this.closeLeaf(at, cause);
-    this.containers.length = Math.max(1, index);
+    this.popContainers(Math.max(1, index));
   }
 
   /**
@@ -598,15 +714,16 @@ class FenceScanner {
 
   private parseListMarker(interruptsParagraph: boolean): ListData | null {
     if (this.indent >= CODE_INDENT) return null;
-    const rest = this.line.slice(this.nextNonspace);
+    const at = this.nextNonspace;
     let bullet = '';
     let ordered = false;
     let delimiter = '';
     let markerLength: number;
-    const b = BULLET_MARKER.exec(rest);
-    const o = b ? null : ORDERED_MARKER.exec(rest);
+    const first = this.line[at];
+    const b = first === '*' || first === '+' || first === '-';
+    const o = b ? null : testAt(ORDERED_MARKER, this.line, at);
     if (b) {
-      bullet = b[0];
+      bullet = first;
       markerLength = 1;
     } else if (o && (!interruptsParagraph || o[1] === '1')) {
       ordered = true;
@@ -615,9 +732,13 @@ class FenceScanner {
     } else {
       return null;
     }
-    const next = this.peek(this.nextNonspace + markerLength);
+    const next = this.peek(at + markerLength);
     if (next !== undefined && next !== ' ' && next !== '\t') return null;
-    if (interruptsParagraph && /^[ \t]*$/.test(this.line.slice(this.nextNonspace + markerLength))) return null;
+    if (interruptsParagraph) {
+      let i = at + markerLength;
+      while (isSpaceOrTab(this.line[i])) i++;
+      if (i >= this.line.length) return null;
+    }
 
     const markerOffset = this.indent;
     this.advanceNextNonspace();

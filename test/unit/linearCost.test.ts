@@ -1,0 +1,195 @@
+import assert from 'node:assert/strict';
+import { InMemoryHost, Notebook, toJsonReport } from '../../extension/core/index.js';
+import { segmentScan } from '../../extension/core/analysis/segments.js';
+import { messages } from '../../extension/core/model/messages.js';
+import { fitThreeSegments } from '../../extension/core/numeric/threeSegmentFit.js';
+import { parseTable } from '../../extension/core/parse/table.js';
+import { lookupUnit, normaliseUnitText } from '../../extension/core/parse/units.js';
+import { scanFencedBlocks } from '../../extension/core/scan/fenceScanner.js';
+import { uniform } from '../support/random.js';
+import { tableBlock } from '../support/synthetic.js';
+
+// The core runs on every keystroke, so its cost must grow linearly with hostile input. Each case
+// times an input of size n and one of size 4n in the same run, the least of three runs each, taken
+// in turns so that a busy moment of the machine weighs on both: linear work gives a ratio near 4,
+// quadratic near 16, and the bound 8 leaves room for noise. A ratio, not a time, so a slow machine
+// does not fail it. Inputs are built before the clock starts; sizes are chosen so that the n run
+// takes tens of milliseconds.
+
+const REPEATS = 3;
+
+function time(run: () => unknown): number {
+  const start = performance.now();
+  run();
+  return performance.now() - start;
+}
+
+/** `make(k)` returns a run over an input of size k·n. */
+function assertLinear(make: (k: 1 | 4) => () => unknown): void {
+  const small = make(1);
+  const large = make(4);
+  let a = Infinity;
+  let b = Infinity;
+  for (let r = 0; r < REPEATS; r++) {
+    a = Math.min(a, time(small));
+    b = Math.min(b, time(large));
+  }
+  assert.ok(b / a < 8, `${a.toFixed(1)} ms at n, ${b.toFixed(1)} ms at 4n: ratio ${(b / a).toFixed(1)} (linear ≈ 4, quadratic ≈ 16)`);
+}
+
+/** A noisy log at a constant 300 K: every few points the noise turns into a short run. */
+function noisyHold(n: number, seed: number): Float64Array {
+  const u = uniform(seed);
+  return Float64Array.from({ length: n }, () => 300 + 0.2 * (u() - 0.5));
+}
+
+describe('linear cost on large and hostile input', () => {
+  describe('segmentScan', () => {
+    it('splits a noisy near-isothermal log in linear time', () => {
+      assertLinear((k) => {
+        const T = noisyHold(320000 * k, 1);
+        return () => segmentScan(T, null, null);
+      });
+    });
+
+    it('reports mixed heating and cooling once, with the number of segments, on the first back-step', () => {
+      const T = noisyHold(10000, 2);
+      const u = uniform(3);
+      const rows = Array.from(T, (v) => [v, 100 + 0.01 * u()]);
+      const nb = new Notebook(new InMemoryHost());
+      nb.setFile('r.md', tableBlock('ramp', 'R-1', 'rate: 1 K/min\n', 'T/K, h/nm', rows, 6));
+      const block = toJsonReport(nb.analyze()).files[0].blocks[0];
+      const mixed = block.diagnostics.filter((d) => d.code === 'ramp.mixed-direction');
+      const withBackStep = segmentScan(Float64Array.from(rows, (r) => r[0]), null, null).filter((s) => s.backStep !== undefined);
+      assert.ok(withBackStep.length > 10, `${withBackStep.length} segments step back`);
+      assert.equal(mixed.length, 1, JSON.stringify(mixed));
+      assert.equal(mixed[0].message, messages.rampMixedDirection(withBackStep[0].direction, withBackStep.length).message);
+      assert.match(mixed[0].message, new RegExp(`inside ${withBackStep.length} `));
+    });
+  });
+
+  describe('fitThreeSegments', () => {
+    it('fits a noisy isothermal hold in linear time', () => {
+      // The larger hold repeats each row four times, so the fit takes the same path (the same
+      // thinned grid, since n is a multiple of 400, and the same searches and iterations) and
+      // only the cost of each evaluation grows.
+      const n = 1200;
+      const u = uniform(4);
+      const h = Array.from({ length: n }, () => 300 + 0.05 * (u() - 0.5));
+      assertLinear((k) => {
+        const t = Float64Array.from({ length: n * k }, (_, i) => 2 * Math.floor(i / k));
+        const hk = Float64Array.from({ length: n * k }, (_, i) => h[Math.floor(i / k)]);
+        return () => fitThreeSegments(t, hk);
+      });
+    });
+
+    it('gives the numbers of the fit over arrays of rows on a fixed dataset', () => {
+      // Expected values: the earlier implementation (a design matrix of n rows of arrays, qr.ts
+      // and levenbergMarquardt.ts) on the same data [computed]; the typed-array evaluations
+      // perform the same operations in the same order, so the numbers agree to the last bit.
+      const u = uniform(42);
+      const t = Float64Array.from({ length: 600 }, (_, i) => 20 * i);
+      const h = Float64Array.from(t, (ti) => 300 + 6 * Math.min(1, Math.max(0, (ti - 4800) / 3600)) + 0.1 * (u() - 0.5));
+      const f = fitThreeSegments(t, h)!;
+      assert.deepEqual(
+        { a: f.a, b1: f.b1, b2: f.b2, b3: f.b3, t1: f.t1, t2: f.t2, sse: f.sse, sigma: f.sigma, pointsAfter: f.pointsAfter },
+        {
+          a: 299.99663295997334,
+          b1: 0.0000011969629414186482,
+          b2: 0.0016655065819937069,
+          b3: -0.001666215195158021,
+          t1: 4801.06971110642,
+          t2: 8399.987090961715,
+          sse: 0.47960914828723755,
+          sigma: 0.028415186231386433,
+          pointsAfter: 180,
+        },
+      );
+      const cov = f.covariance!;
+      assert.deepEqual(
+        [cov[0][0], cov[1][1], cov[2][2], cov[3][3], cov[4][4], cov[5][5], cov[4][5]],
+        [0.0000256535193761342, 1.7305279494966979e-12, 5.954069098641824e-12, 8.37707885382929e-12, 11.35788882381651, 12.96307761630023, -3.30270121275731],
+      );
+    });
+  });
+
+  describe('scanFencedBlocks', () => {
+    it('reads one line of list markers (- - - … a) in linear time', () => {
+      assertLinear((k) => {
+        const text = '- '.repeat(80000 * k) + 'a\n';
+        return () => scanFencedBlocks(text);
+      });
+    });
+
+    it('reads one line of block-quote markers (> > > … a) in linear time', () => {
+      assertLinear((k) => {
+        const text = '> '.repeat(40000 * k) + 'a\n';
+        return () => scanFencedBlocks(text);
+      });
+    });
+
+    it('reads a deeply nested list, one item per line, in time linear in the text', () => {
+      // The shape of "deeply nested lists" in cmark's test/pathological_tests.py. Item d is
+      // indented by 2d spaces, so the text grows as the square of the depth: twice the depth is
+      // four times the text.
+      assertLinear((k) => {
+        const depth = 1000 * (k === 4 ? 2 : 1);
+        const text = Array.from({ length: depth }, (_, i) => '  '.repeat(i) + '* a\n').join('');
+        return () => scanFencedBlocks(text);
+      });
+    });
+
+    it('reads blank lines after a deeply nested list in linear time', () => {
+      assertLinear((k) => {
+        const n = 40000 * k;
+        const text = '- '.repeat(n) + '```\n' + ' \n'.repeat(n) + '```\n';
+        return () => scanFencedBlocks(text);
+      });
+    });
+
+    it('still finds the fence at the end of a deep list', () => {
+      const [b] = scanFencedBlocks('- '.repeat(5000) + '```ramp R-1\n' + '\n'.repeat(3) + '```\n');
+      assert.equal(b.lang, 'ramp');
+    });
+  });
+
+  describe('units and tables on one long line', () => {
+    it('normalises a unit padded with spaces in linear time, and reads no unit that long', () => {
+      assertLinear((k) => {
+        const text = 'K' + ' '.repeat(400000 * k) + 'x';
+        return () => normaliseUnitText(text);
+      });
+      assert.equal(lookupUnit('K' + ' '.repeat(100000) + '/min'), null);
+      assert.equal(lookupUnit(' K  /  min ')?.unit.equalBase(lookupUnit('K/min')!.unit), true);
+    });
+
+    it('reads a header cell padded with spaces in linear time', () => {
+      assertLinear((k) => {
+        const lines = [`T ${' '.repeat(2000000 * k)}x, h/nm`, '1, 2'];
+        return () => parseTable(lines);
+      });
+      const t = parseTable([`T/${' '.repeat(100000)}K, h/nm`, '300, 2']);
+      assert.equal(t.byRole.get('temperature')?.values[0], 300);
+    });
+
+    it('reads a header made of parentheses in linear time', () => {
+      assertLinear((k) => {
+        const lines = ['('.repeat(1000000 * k), '1'];
+        return () => parseTable(lines);
+      });
+      assertLinear((k) => {
+        const lines = ['T/K, ' + '('.repeat(1000000 * k), '1, 2'];
+        return () => parseTable(lines);
+      });
+    });
+
+    it('rejects a 100 000-digit cell in linear time', () => {
+      assertLinear((k) => {
+        const lines = ['T/K', '1'.repeat(2000000 * k) + 'x'];
+        return () => parseTable(lines);
+      });
+      const t = parseTable(['T/K', '1'.repeat(100000) + 'x']);
+      assert.equal(t.problems[0].message.code, 'table.bad-cell');
+    });
+  });
+});
