@@ -2,12 +2,18 @@
 import * as fs from 'node:fs';
 import * as path from 'node:path';
 
-const SKIP_DIRS = new Set(['node_modules', '.git', 'dist', 'out']);
+/** Tool folders, never notebook content: hidden folders (`.git`, `.vscode`) and installed packages. */
+function isToolFolder(name: string): boolean {
+  return name.startsWith('.') || name === 'node_modules';
+}
 
-/** Every markdown file below a root, root-relative with `/`, sorted. Hidden folders are skipped. */
-export function markdownFiles(root: string): string[] {
+/**
+ * Files below a root whose name `accept`s, root-relative with `/`, sorted; tool folders and
+ * hidden files are skipped, and so is anything deeper than `maxDepth` folders.
+ */
+export function filesBelow(root: string, accept: (name: string) => boolean, maxDepth = Infinity): string[] {
   const out: string[] = [];
-  const walk = (dir: string, rel: string): void => {
+  const walk = (dir: string, rel: string, depth: number): void => {
     let entries: fs.Dirent[];
     try {
       entries = fs.readdirSync(dir, { withFileTypes: true });
@@ -18,12 +24,17 @@ export function markdownFiles(root: string): string[] {
       if (e.name.startsWith('.')) continue;
       const childRel = rel ? `${rel}/${e.name}` : e.name;
       if (e.isDirectory()) {
-        if (!SKIP_DIRS.has(e.name)) walk(path.join(dir, e.name), childRel);
-      } else if (e.isFile() && /\.(md|markdown)$/i.test(e.name)) {
+        if (!isToolFolder(e.name) && depth < maxDepth) walk(path.join(dir, e.name), childRel, depth + 1);
+      } else if (e.isFile() && accept(e.name)) {
         out.push(childRel);
       }
     }
   };
-  walk(root, '');
+  walk(root, '', 0);
   return out.sort();
+}
+
+/** Every markdown file below a root. */
+export function markdownFiles(root: string): string[] {
+  return filesBelow(root, (name) => /\.(md|markdown)$/i.test(name));
 }

@@ -4,10 +4,10 @@
  * `material:`, `reference:` and `of:`; units after a number of a quantity key; `data:` paths in
  * the notebook folder.
  */
-import * as fs from 'node:fs';
 import * as path from 'node:path';
 import { CompletionItemKind, type CompletionItem, type Position } from 'vscode-languageserver';
 import { BLOCK_KINDS, blockKeys, type BlockKind } from '../core/index.js';
+import { filesBelow } from '../node/discovery.js';
 import { at } from './blocks.js';
 import type { Workspace } from './workspace.js';
 
@@ -87,25 +87,9 @@ export function completions(ws: Workspace, uri: string, position: Position): Com
 /** Data-like files in the notebook folder, as paths relative to the notebook file. */
 function dataPaths(root: string, rel: string, typed: string): CompletionItem[] {
   const fileDir = path.posix.dirname(rel);
-  const out: CompletionItem[] = [];
-  const walk = (dir: string, relDir: string, depth: number): void => {
-    if (depth > 4 || out.length >= 200) return;
-    let entries: fs.Dirent[];
-    try {
-      entries = fs.readdirSync(dir, { withFileTypes: true });
-    } catch {
-      return;
-    }
-    for (const e of entries) {
-      if (e.name.startsWith('.') || e.name === 'node_modules') continue;
-      const childRel = relDir ? `${relDir}/${e.name}` : e.name;
-      if (e.isDirectory()) walk(path.join(dir, e.name), childRel, depth + 1);
-      else if (e.isFile() && DATA_EXTENSIONS.test(e.name)) {
-        const shown = path.posix.relative(fileDir === '.' ? '' : fileDir, childRel);
-        if (shown.startsWith(typed)) out.push({ label: shown, kind: CompletionItemKind.File });
-      }
-    }
-  };
-  walk(root, '', 0);
-  return out;
+  return filesBelow(root, (name) => DATA_EXTENSIONS.test(name), 5)
+    .map((p) => path.posix.relative(fileDir === '.' ? '' : fileDir, p))
+    .filter((shown) => shown.startsWith(typed))
+    .slice(0, 200)
+    .map((shown) => ({ label: shown, kind: CompletionItemKind.File }));
 }

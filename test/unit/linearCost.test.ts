@@ -12,8 +12,9 @@ import { tableBlock } from '../support/synthetic.js';
 // The core runs on every keystroke, so its cost must grow linearly with hostile input. Each case
 // times an input of size n and one of size 4n in the same run, the least of three runs each, taken
 // in turns so that a busy moment of the machine weighs on both: linear work gives a ratio near 4,
-// quadratic near 16, and the bound 8 leaves room for noise. A ratio, not a time, so a slow machine
-// does not fail it. Inputs are built before the clock starts; sizes are chosen so that the n run
+// quadratic near 16, and the bound 10 leaves room for noise (a garbage collection in one run);
+// a ratio over the bound is measured once more before it fails. A ratio, not a time, so a slow
+// machine does not fail it. Inputs are built before the clock starts; sizes are chosen so that the n run
 // takes tens of milliseconds.
 
 const REPEATS = 3;
@@ -28,13 +29,18 @@ function time(run: () => unknown): number {
 function assertLinear(make: (k: 1 | 4) => () => unknown): void {
   const small = make(1);
   const large = make(4);
-  let a = Infinity;
-  let b = Infinity;
-  for (let r = 0; r < REPEATS; r++) {
-    a = Math.min(a, time(small));
-    b = Math.min(b, time(large));
-  }
-  assert.ok(b / a < 8, `${a.toFixed(1)} ms at n, ${b.toFixed(1)} ms at 4n: ratio ${(b / a).toFixed(1)} (linear ≈ 4, quadratic ≈ 16)`);
+  const measure = (): [number, number] => {
+    let a = Infinity;
+    let b = Infinity;
+    for (let r = 0; r < REPEATS; r++) {
+      a = Math.min(a, time(small));
+      b = Math.min(b, time(large));
+    }
+    return [a, b];
+  };
+  let [a, b] = measure();
+  if (b / a >= 10) [a, b] = measure();
+  assert.ok(b / a < 10, `${a.toFixed(1)} ms at n, ${b.toFixed(1)} ms at 4n: ratio ${(b / a).toFixed(1)} (linear ≈ 4, quadratic ≈ 16)`);
 }
 
 /** A noisy log at a constant 300 K: every few points the noise turns into a short run. */

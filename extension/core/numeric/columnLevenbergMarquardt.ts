@@ -5,8 +5,8 @@
  * live for the whole fit, and each damped step [J; √λ·D] δ = [−r; 0] is solved in one reusable
  * QR workspace (qrWorkspace.ts).
  *
- * Method: the iteration of levenbergMarquardt.ts, step for step and in the same floating-point
- * order, so both give the same numbers; that one takes arrays of rows and suits small problems.
+ * `levenbergMarquardt` (levenbergMarquardt.ts) is this iteration for problems written with arrays
+ * of rows.
  *
  * Policy: returns the best point found; `converged` says whether the relative reduction fell
  * below the tolerance. A point outside the model's domain, or non-finite residuals, rejects a
@@ -14,7 +14,15 @@
  */
 import { inverseNormalMatrix } from './qr.js';
 import { QrWorkspace } from './qrWorkspace.js';
-import type { LmResult } from './levenbergMarquardt.js';
+
+export interface LmResult {
+  readonly parameters: number[];
+  readonly sse: number;
+  readonly converged: boolean;
+  readonly iterations: number;
+  /** σ²(JᵀJ)⁻¹ with σ² = SSE/(m − n), or null when J is rank-deficient. */
+  readonly covariance: number[][] | null;
+}
 
 export interface ColumnLmProblem {
   /** Number of residuals m. */

@@ -5,54 +5,21 @@
  *
  * Policy: a rank-deficient design returns null.
  */
+import { QrWorkspace, type QrSolution } from './qrWorkspace.js';
 
-export interface QrSolution {
-  readonly x: number[];
-  /** Upper-triangular R (p × p). */
-  readonly r: number[][];
-}
+export type { QrSolution };
 
-/** Minimises ‖A x − b‖₂ for A of m × p with m ≥ p. */
+/** Minimises ‖A x − b‖₂ for A of m × p (rows) with m ≥ p. */
 export function solveLeastSquares(a: readonly (readonly number[])[], b: readonly number[]): QrSolution | null {
   const m = a.length;
   const p = m > 0 ? a[0].length : 0;
   if (m < p || p === 0) return null;
-  const A = a.map((row) => row.slice());
-  const y = b.slice();
-  for (let k = 0; k < p; k++) {
-    let norm = 0;
-    for (let i = k; i < m; i++) norm += A[i][k] * A[i][k];
-    norm = Math.sqrt(norm);
-    if (norm === 0) return null;
-    const alpha = A[k][k] > 0 ? -norm : norm;
-    const v = new Array<number>(m - k);
-    for (let i = k; i < m; i++) v[i - k] = A[i][k];
-    v[0] -= alpha;
-    let vv = 0;
-    for (const e of v) vv += e * e;
-    if (vv === 0) continue;
-    for (let j = k; j < p; j++) {
-      let s = 0;
-      for (let i = k; i < m; i++) s += v[i - k] * A[i][j];
-      const f = (2 * s) / vv;
-      for (let i = k; i < m; i++) A[i][j] -= f * v[i - k];
-    }
-    let s = 0;
-    for (let i = k; i < m; i++) s += v[i - k] * y[i];
-    const f = (2 * s) / vv;
-    for (let i = k; i < m; i++) y[i] -= f * v[i - k];
+  const work = new QrWorkspace(m, p);
+  for (let i = 0; i < m; i++) {
+    for (let j = 0; j < p; j++) work.design[j * m + i] = a[i][j];
+    work.rhs[i] = b[i];
   }
-  const r: number[][] = [];
-  for (let i = 0; i < p; i++) r.push(A[i].slice(0, p).map((v, j) => (j < i ? 0 : v)));
-  const scale = Math.max(...r.map((row, i) => Math.abs(row[i])));
-  const x = new Array<number>(p).fill(0);
-  for (let i = p - 1; i >= 0; i--) {
-    if (Math.abs(r[i][i]) <= 1e-14 * scale) return null;
-    let s = y[i];
-    for (let j = i + 1; j < p; j++) s -= r[i][j] * x[j];
-    x[i] = s / r[i][i];
-  }
-  return { x, r };
+  return work.solve(m, p);
 }
 
 /** (RᵀR)⁻¹ = R⁻¹R⁻ᵀ, the unscaled covariance of a least-squares fit. */

@@ -3,13 +3,17 @@
  * Computations, 4th ed., §5.2 and §5.3), for fits that solve many tall problems of one shape
  * (a profile search over breakpoints, Levenberg–Marquardt steps) without an array per row.
  *
- * Method: the operations of `solveLeastSquares` in qr.ts, in the same order, so the same numbers;
- * only the storage differs (one Float64Array, column j of the design at [j·capacity, …)).
+ * Storage: one Float64Array, column j of the design at [j·capacity, …). `solveLeastSquares` in
+ * qr.ts is this solver for a design given as rows.
  *
- * Policy: a rank-deficient design returns null, as in qr.ts. `solve` overwrites the design and
+ * Policy: a rank-deficient design returns null. `solve` overwrites the design and
  * the right-hand side; fill them again before the next solve. Allocates nothing per row.
  */
-import type { QrSolution } from './qr.js';
+export interface QrSolution {
+  readonly x: number[];
+  /** Upper-triangular R (p × p). */
+  readonly r: number[][];
+}
 
 export class QrWorkspace {
   /** The design A, column-major: A(i, j) = design[j·capacity + i]. */
