@@ -56,6 +56,11 @@ export default tseslint.config(
     },
   },
   {
+    // Node scripts in plain JavaScript.
+    files: ['**/*.mjs'],
+    languageOptions: { globals: { process: 'readonly', console: 'readonly', Buffer: 'readonly', URL: 'readonly', setTimeout: 'readonly', clearTimeout: 'readonly' } },
+  },
+  {
     files: ['extension/core/**/*.ts'],
     rules: {
       'no-restricted-imports': ['error', pure],

@@ -1,8 +1,11 @@
-// Bundles the command line and the language server with esbuild. Type-checking is
-// `npm run typecheck` (tsc --noEmit).
+// Bundles the command line, the language server, the VS Code extension and the preview webview
+// with esbuild. Type-checking is `npm run typecheck` (tsc --noEmit). `--release` minifies and
+// leaves out source maps (the packaged extension).
+import { copyFile, mkdir } from 'node:fs/promises';
 import { build } from 'esbuild';
 
-const common = { bundle: true, platform: 'node', target: 'node20', sourcemap: true, logLevel: 'warning' };
+const release = process.argv.includes('--release');
+const common = { bundle: true, platform: 'node', target: 'node20', sourcemap: !release, minify: release, logLevel: 'warning' };
 
 await Promise.all([
   build({
@@ -26,4 +29,27 @@ await Promise.all([
     // (its Node build loads the optional native canvas with a top-level await).
     alias: { 'vega-canvas': './node_modules/vega-canvas/build/vega-canvas.browser.js' },
   }),
+  // The extension host loads the client with `require`; `vscode` is provided by the editor.
+  build({
+    ...common,
+    entryPoints: ['extension/vscode/extension.ts'],
+    outfile: 'dist/extension.cjs',
+    format: 'cjs',
+    external: ['vscode'],
+  }),
+  // The chart preview's page script: one classic script for the webview, no eval (vega-interpreter).
+  // Its own folder, the only one the webview may read.
+  build({
+    bundle: true,
+    entryPoints: ['extension/webview/main.ts'],
+    outfile: 'dist/webview/webview.js',
+    format: 'iife',
+    platform: 'browser',
+    target: 'es2022',
+    minify: true,
+    sourcemap: false,
+    logLevel: 'warning',
+  }),
+  // Its stylesheet, served as a file of the extension (the page's CSP allows no inline styles).
+  mkdir('dist/webview', { recursive: true }).then(() => copyFile('extension/webview/preview.css', 'dist/webview/webview.css')),
 ]);

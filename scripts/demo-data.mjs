@@ -1,4 +1,3 @@
-/* global console, process */
 // Writes the demo notebook's data files (fixtures/demo/data/). The scenario is invented:
 // fictional materials, synthetic curves from simple models plus seeded noise.
 // Run: node scripts/demo-data.mjs

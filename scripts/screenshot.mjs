@@ -1,4 +1,3 @@
-/* global process */
 // Takes a screenshot of an HTML file in headless Chromium (Debian's /usr/bin/chromium).
 // Usage: node scripts/screenshot.mjs demo-report.html out.png [width]
 import { chromium } from 'playwright-core';

@@ -4,7 +4,7 @@ import * as path from 'node:path';
 import { figureSpec, stabilityMapSpecs, toVega } from '../core/charts/index.js';
 import { summarise, type BlockReport, type NotebookReport } from '../core/index.js';
 import { buildHtmlReport, summaryCsv } from '../core/report/index.js';
-import { renderSvg } from './renderSvg.js';
+import { renderSvg } from '../node/renderSvg.js';
 
 export interface ReportOptions {
   readonly output: string;

@@ -32,6 +32,8 @@ export interface BlockChart {
   readonly title: string;
   /** The compiled Vega spec, or null when the block has nothing to draw. */
   readonly vega: unknown;
+  /** The chart drawn as SVG, when asked for (`svg: true`) and the block has one. */
+  readonly svg?: string | null;
   readonly figures: readonly FigureRow[];
   readonly diagnostics: readonly BlockDiagnosticRow[];
 }
@@ -42,6 +44,8 @@ export interface ChartsParams {
   /** Only the block that holds this 0-based line. */
   readonly line?: number;
   readonly theme: 'light' | 'dark';
+  /** Also draw each chart as SVG (for views that run no script, such as the markdown preview). */
+  readonly svg?: boolean;
 }
 
 export interface ChartsResult {

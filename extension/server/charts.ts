@@ -16,6 +16,11 @@ function loadCharts(): Promise<Charts> {
   return charts;
 }
 
+async function renderSvg(spec: Record<string, unknown>): Promise<string> {
+  const { renderSvg: render } = await import('../node/renderSvg.js');
+  return render(spec);
+}
+
 /** A chart title that says what the block is: kind and id, film or material, substrate temperature. */
 export function chartTitle(block: BlockReport, film?: BlockReport): string {
   const parts = [`${block.kind} ${block.id ?? ''}`.trim()];
@@ -35,7 +40,8 @@ export async function fileCharts(ws: Workspace, params: ChartsParams): Promise<C
   if (!file) return null;
   const lib = await loadCharts();
   const wanted = params.line === undefined ? file.blocks : file.blocks.filter((b) => text.position(b.span.start).line <= params.line! && text.position(b.span.end).line >= params.line!);
-  const blocks: BlockChart[] = wanted.map((b) => {
+  const blocks: BlockChart[] = [];
+  for (const b of wanted) {
     const filmId = typeof b.metadata.film === 'string' ? b.metadata.film : null;
     const filmLoc = filmId ? engine.definitionOf(filmId) : undefined;
     const film = filmLoc ? engine.analyze({ only: [filmLoc.path] }).files[0]?.blocks.find((x) => x.span.start === filmLoc.span.start) : undefined;
@@ -48,7 +54,16 @@ export async function fileCharts(ws: Workspace, params: ChartsParams): Promise<C
         vega = null;
       }
     }
-    return {
+    let svg: string | null | undefined;
+    if (params.svg) {
+      try {
+        svg = vega ? await renderSvg(vega as Record<string, unknown>) : null;
+      } catch {
+        svg = null;
+      }
+    }
+    blocks.push({
+      ...(svg !== undefined ? { svg } : {}),
       kind: b.kind,
       id: b.id,
       line: text.position(b.span.start).line,
@@ -57,8 +72,8 @@ export async function fileCharts(ws: Workspace, params: ChartsParams): Promise<C
       vega,
       figures: figureRows(b),
       diagnostics: b.diagnostics.filter((d) => d.phase !== 'save').map((d) => ({ severity: d.severity, code: d.code, message: d.message, line: text.position(d.span.start).line })),
-    };
-  });
+    });
+  }
   return { uri: params.uri, version: ws.versionOf(params.uri), blocks };
 }
 

@@ -6,14 +6,27 @@
 import type { Position, Range } from 'vscode-languageserver';
 import { LineIndex, type Span } from '../core/index.js';
 
+/** Positions of an open document, kept up to date by its incremental changes (`TextDocument`). */
+export interface PositionSource {
+  positionAt(offset: number): Position;
+  offsetAt(position: Position): number;
+}
+
 export class DocumentText {
-  readonly lines: LineIndex;
   /** 1 when the editor's text starts with a byte-order mark (the engine's offsets do not count it). */
   readonly bom: number;
+  private index: LineIndex | undefined;
 
-  constructor(readonly raw: string) {
+  constructor(
+    readonly raw: string,
+    private readonly source?: PositionSource,
+  ) {
     this.bom = raw.charCodeAt(0) === 0xfeff ? 1 : 0;
-    this.lines = new LineIndex(raw);
+  }
+
+  /** Line starts, found on first use (a keystroke in a large file needs none until a request). */
+  get lines(): LineIndex {
+    return (this.index ??= new LineIndex(this.raw));
   }
 
   /** The text the engine sees. */
@@ -28,7 +41,7 @@ export class DocumentText {
   }
 
   position(offset: number): Position {
-    return this.lines.positionAt(offset + this.bom);
+    return this.source ? this.source.positionAt(offset + this.bom) : this.lines.positionAt(offset + this.bom);
   }
 
   range(span: Span): Range {
@@ -36,7 +49,7 @@ export class DocumentText {
   }
 
   offset(position: Position): number {
-    return Math.max(0, this.lines.offsetAt(position) - this.bom);
+    return Math.max(0, (this.source ? this.source.offsetAt(position) : this.lines.offsetAt(position)) - this.bom);
   }
 
   /** The text of a 0-based line, without its line break. */

@@ -11,7 +11,7 @@ import { VitrineServer } from './server.js';
 /** The README beside the bundle (in the package) or at the repository root: where the codes are listed. */
 function readmeHref(): string | null {
   const here = typeof __dirname === 'string' ? __dirname : path.dirname(process.argv[1] ?? '.');
-  for (const candidate of [path.join(here, '..', 'README.md'), path.join(here, 'README.md')]) {
+  for (const candidate of [path.join(here, '..', 'README.md'), path.join(here, '..', 'readme.md'), path.join(here, 'README.md')]) {
     if (fs.existsSync(candidate)) return `${pathToFileURL(candidate).href}#diagnostic-codes`;
   }
   return null;

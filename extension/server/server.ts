@@ -41,6 +41,8 @@ import { DEFAULT_SETTINGS, readSettings } from './settings.js';
 import { Workspace, pathToUri, uriToPath, type Place } from './workspace.js';
 
 const DEBOUNCE_MS = 250;
+/** Handlers slower than this are logged, to find what makes typing slow. */
+const SLOW_MS = 200;
 
 interface PublishedState {
   /** Key of the last published diagnostics, to skip identical republishing. */
@@ -87,7 +89,11 @@ export class VitrineServer {
     return async (...args: P) => {
       try {
         if (name !== 'initialized' && name !== 'configuration') await this.ready;
-        return await fn(...args);
+        const start = performance.now();
+        const result = await fn(...args);
+        const ms = performance.now() - start;
+        if (ms > SLOW_MS) this.log(`${name} took ${ms.toFixed(0)} ms`);
+        return result;
       } catch (e) {
         if (e instanceof ResponseError) throw e;
         this.log(`${name} failed: ${e instanceof Error ? (e.stack ?? e.message) : String(e)}`);
@@ -102,8 +108,9 @@ export class VitrineServer {
     c.onInitialized(this.guard('initialized', undefined, () => this.initialized()));
     c.onDidChangeConfiguration(this.guard('configuration', undefined, (p: { settings: unknown }) => this.configure(p.settings)));
     c.onDidOpenTextDocument(this.guard('didOpen', undefined, (p) => {
-      this.documents.set(p.textDocument.uri, TextDocument.create(p.textDocument.uri, p.textDocument.languageId, p.textDocument.version, p.textDocument.text));
-      this.workspace.didOpen(p.textDocument.uri, p.textDocument.text, p.textDocument.version);
+      const doc = TextDocument.create(p.textDocument.uri, p.textDocument.languageId, p.textDocument.version, p.textDocument.text);
+      this.documents.set(p.textDocument.uri, doc);
+      this.workspace.didOpen(p.textDocument.uri, p.textDocument.text, p.textDocument.version, doc);
       this.markSaved(p.textDocument.uri);
       this.schedule(p.textDocument.uri, 0);
     }));
@@ -112,7 +119,7 @@ export class VitrineServer {
       if (!doc) return;
       const next = TextDocument.update(doc, p.contentChanges, p.textDocument.version);
       this.documents.set(p.textDocument.uri, next);
-      this.workspace.didChange(p.textDocument.uri, next.getText(), next.version);
+      this.workspace.didChange(p.textDocument.uri, next.getText(), next.version, next);
       this.pending.add(p.textDocument.uri);
       this.dirty.add(p.textDocument.uri);
       if (this.settings.diagnostics.run === 'onType') this.schedule(p.textDocument.uri, DEBOUNCE_MS);
@@ -216,7 +223,7 @@ export class VitrineServer {
       // Files opened before their folder was read belong to it now.
       for (const uri of this.workspace.openUris()) {
         const text = this.documents.get(uri);
-        if (text) this.workspace.didOpen(uri, text.getText(), text.version);
+        if (text) this.workspace.didOpen(uri, text.getText(), text.version, text);
       }
     }
     progress?.done();
@@ -377,7 +384,7 @@ function isTheme(t: unknown): boolean {
 
 function isChartsParams(p: unknown): p is ChartsParams {
   const o = p as Partial<ChartsParams> | null;
-  return typeof o === 'object' && o !== null && typeof o.uri === 'string' && isTheme(o.theme) && (o.line === undefined || (Number.isInteger(o.line) && o.line >= 0));
+  return typeof o === 'object' && o !== null && typeof o.uri === 'string' && isTheme(o.theme) && (o.line === undefined || (Number.isInteger(o.line) && o.line >= 0)) && (o.svg === undefined || typeof o.svg === 'boolean');
 }
 
 function isSummaryParams(p: unknown): p is SummaryParams {

@@ -9,7 +9,7 @@ import { fileURLToPath, pathToFileURL } from 'node:url';
 import { MAX_DATA_FILE_BYTES, Notebook, type NotebookOptions } from '../core/index.js';
 import { markdownFiles } from '../node/discovery.js';
 import { FileHost } from '../node/fileHost.js';
-import { DocumentText } from './documentText.js';
+import { DocumentText, type PositionSource } from './documentText.js';
 
 export interface Folder {
   /** Absolute path of the notebook root. */
@@ -126,15 +126,15 @@ export class Workspace {
     return [...this.open.keys()];
   }
 
-  didOpen(uri: string, text: string, version: number): Place | null {
-    this.open.set(uri, { text: new DocumentText(text), version });
+  didOpen(uri: string, text: string, version: number, positions?: PositionSource): Place | null {
+    this.open.set(uri, { text: new DocumentText(text, positions), version });
     const place = this.placeOf(uri);
     place?.folder.engine.setFile(place.rel, text);
     return place;
   }
 
-  didChange(uri: string, text: string, version: number): Place | null {
-    return this.didOpen(uri, text, version);
+  didChange(uri: string, text: string, version: number, positions?: PositionSource): Place | null {
+    return this.didOpen(uri, text, version, positions);
   }
 
   /** A closed document falls back to the disk's text (or leaves the notebook if it is gone). */

@@ -3,7 +3,7 @@ import * as fs from 'node:fs';
 import * as path from 'node:path';
 import { figureSpec, stabilityMapSpecs, toVega } from '../../extension/core/charts/index.js';
 import { summarise } from '../../extension/core/index.js';
-import { renderSvg } from '../../extension/cli/renderSvg.js';
+import { renderSvg } from '../../extension/node/renderSvg.js';
 import { loadNotebook, REPO } from '../support/loadNotebook.js';
 
 // Golden SVG snapshots, one per chart kind, from the demo notebook. The SVG renderer estimates

@@ -118,3 +118,65 @@ describe('the engine after random edits', () => {
     );
   });
 });
+
+// Typing: single characters inserted or deleted anywhere in a notebook that holds the structures
+// that can swallow or release a fence (HTML blocks, lists, quotes, indented code, blank lines).
+const RICH = [
+  '# Day',
+  '',
+  'Some prose before the first block.',
+  MATERIAL_BLOCK(315),
+  '<div>',
+  'html text',
+  '```deposition D-9',
+  'material: M-1',
+  '```',
+  '</div>',
+  '',
+  '- a list item',
+  '  more text',
+  '',
+  '  ```deposition D-1',
+  '  material: M-1',
+  '  substrate_temperature: 280 K',
+  '  rate: 0.2 nm/s',
+  '  duration: 100 s',
+  '  ```',
+  '',
+  '> a quote',
+  '> ```deposition D-2',
+  '> material: M-1',
+  '> ```',
+  '',
+  '    indented code',
+  '',
+  '<!-- a comment',
+  'still comment',
+  '-->',
+  '',
+  tableBlock('ramp', 'R-1', 'film: D-1\nrate: 10 K/min\ndirection: cooling\n', 'T/K, h/nm', cooling(12, 314)),
+  'Closing prose.',
+].join('\n');
+
+describe('the engine while typing', () => {
+  it('reports after every keystroke what a fresh engine reports', () => {
+    const keystroke = fc.record({ at: fc.nat({ max: 5000 }), ch: fc.constantFrom('', 'a', ' ', '\n', '`', '~', '<', '>', '-', '#', '1', ':', '\t') });
+    fc.assert(
+      fc.property(fc.array(keystroke, { minLength: 1, maxLength: 30 }), (keys) => {
+        const warm = new Notebook(new MapHost(new Map()));
+        let text = RICH;
+        warm.setFile('n.md', text);
+        warm.analyze();
+        for (const k of keys) {
+          const i = k.at % (text.length + 1);
+          text = text.slice(0, i) + k.ch + text.slice(i + (k.ch === '' ? 1 : 0));
+          warm.setFile('n.md', text);
+        }
+        const cold = new Notebook(new MapHost(new Map()));
+        cold.setFile('n.md', text);
+        assert.deepEqual(warm.analyze(), cold.analyze());
+      }),
+      { numRuns: Number(process.env.RUNS ?? 300), seed: Number(process.env.SEED ?? 13) },
+    );
+  });
+});

@@ -98,3 +98,28 @@ describe('diagnostic codes', () => {
     assert.deepEqual([...engine.DIAGNOSTIC_CODES].sort(), [...used].sort());
   });
 });
+
+describe('README', () => {
+  it('lists exactly the diagnostic codes under its Diagnostic codes heading', () => {
+    const readme = fs.readFileSync(path.join(REPO, 'README.md'), 'utf8');
+    const section = readme.split('### Diagnostic codes')[1]?.split(/\n## /)[0] ?? '';
+    const listed = [...section.matchAll(/^\| `([a-z0-9.-]+)` \|/gm)].map((m) => m[1]);
+    assert.deepEqual(listed.sort(), [...engine.DIAGNOSTIC_CODES].sort());
+  });
+});
+
+describe('the extension manifest', () => {
+  const manifest = JSON.parse(fs.readFileSync(path.join(REPO, 'package.json'), 'utf8'));
+
+  it('offers exactly the diagnostic codes in the severity setting', () => {
+    const setting = manifest.contributes.configuration.properties['vitrine.diagnostics.severity'];
+    assert.deepEqual([...setting.propertyNames.enum].sort(), [...engine.DIAGNOSTIC_CODES].sort());
+  });
+
+  it('names every command and setting under vitrine. and activates on markdown only', () => {
+    for (const c of manifest.contributes.commands) assert.match(c.command, /^vitrine\./);
+    for (const key of Object.keys(manifest.contributes.configuration.properties)) assert.match(key, /^vitrine\./);
+    assert.deepEqual(manifest.activationEvents, ['onLanguage:markdown', 'onWebviewPanel:vitrine.charts']);
+    assert.equal(manifest.engines.vscode, '^1.100.0');
+  });
+});

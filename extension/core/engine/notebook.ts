@@ -35,6 +35,7 @@ import { scanFencedBlocks } from '../scan/fenceScanner.js';
 import { hashParts } from '../text/hash.js';
 import { LineIndex, stripBom, toOneBasedPoint } from '../text/positions.js';
 import { DataFiles, MAX_DATA_FILE_BYTES, type DataFileFailure } from './dataFiles.js';
+import { editRegion, lineBounds, plainLines, withinLineText } from './editRegion.js';
 import type { NotebookHost } from './host.js';
 
 export type { BlockReport, FileReport, NotebookReport };
@@ -94,7 +95,7 @@ interface BlockSlot {
 
 interface FileEntry {
   readonly text: string;
-  readonly lines: LineIndex;
+  readonly lines: () => LineIndex;
   readonly blocks: readonly BlockSlot[];
   readonly diagnostics: readonly Diagnostic[];
 }
@@ -132,10 +133,21 @@ export class Notebook {
     }
   }
 
-  /** Adds or replaces a file (root-relative path). Cheap: a line scan and reused parses. */
+  /**
+   * Adds or replaces a file (root-relative path). Cheap: a line scan and reused parses; when the
+   * change leaves the block structure alone (typing inside one block, or in plain prose), only
+   * the changed block is scanned again, or none.
+   */
   setFile(path: string, rawText: string): void {
     const text = stripBom(rawText);
     const old = this.files.get(path);
+    if (old && old.diagnostics.length === 0) {
+      const quick = this.quickUpdate(path, old, text);
+      if (quick) {
+        this.replace(path, quick);
+        return;
+      }
+    }
     const reusable = new Map<string, ParsedBlock>();
     for (const slot of old?.blocks ?? []) reusable.set(slot.input.textKey, slot.parsed);
     const blocks: BlockSlot[] = [];
@@ -152,12 +164,51 @@ export class Notebook {
     } catch (e) {
       diagnostics.push(at(messages.internalError(errorText(e)), { start: 0, end: Math.min(1, text.length) }));
     }
-    this.replace(path, { text, lines: new LineIndex(text), blocks, diagnostics });
+    this.replace(path, { text, lines: lazyLines(text), blocks, diagnostics });
+  }
+
+  /** The new entry of a file after an edit that keeps its block boundaries, or null to scan it all. */
+  private quickUpdate(path: string, old: FileEntry, text: string): FileEntry | null {
+    const region = editRegion(old.text, text);
+    if (!region) return old;
+    const delta = region.newEnd - region.oldEnd;
+    const oldLines = lineBounds(old.text, region.start, region.oldEnd);
+    const newLines = lineBounds(text, region.start, region.newEnd);
+    const index = old.blocks.findIndex((slot) => slot.start <= oldLines.end && oldLines.start < slot.start + slot.parsed.span.end);
+    const shifted = (slot: BlockSlot): BlockSlot => (slot.start >= oldLines.end ? { ...slot, start: slot.start + delta } : slot);
+    if (index < 0) {
+      // Prose only: an edit within one line, after its indentation, on lines plain before and after.
+      if (!withinLineText(old.text, region.start, region.oldEnd) || !withinLineText(text, region.start, region.newEnd)) return null;
+      if (!plainLines(old.text, oldLines.start, oldLines.end) || !plainLines(text, newLines.start, newLines.end)) return null;
+      return { text, lines: lazyLines(text), blocks: old.blocks.map(shifted), diagnostics: [] };
+    }
+    const slot = old.blocks[index];
+    const fence = slot.input.fence;
+    const openEnd = slot.start + (fence.infoSpan.end - fence.span.start);
+    const end = slot.start + slot.parsed.span.end;
+    // Inside the body of a closed block that sits directly in the document, and no fence run typed or removed.
+    const closeStart = lineBounds(old.text, end, end).start;
+    if (!fence.closed || fence.nested || oldLines.start <= openEnd || oldLines.end >= closeStart) return null;
+    if (/```|~~~/.test(old.text.slice(oldLines.start, oldLines.end)) || /```|~~~/.test(text.slice(newLines.start, newLines.end))) return null;
+    // Scan the block alone, from the start of its fence line (its indentation shapes its body).
+    const lineStart = lineBounds(text, slot.start, slot.start).start;
+    const blockText = text.slice(lineStart, end + delta);
+    const scanned = scanFencedBlocks(blockText);
+    const one = scanned.length === 1 && scanned[0].span.end === blockText.length && scanned[0].closed && lineStart + scanned[0].span.start === slot.start ? scanned[0] : null;
+    const header = one ? readBlockHeader(one) : null;
+    if (!one || !header) return null;
+    const source = blockText.slice(one.span.start);
+    const input: ParseInput = { file: path, textKey: blockTextKey(path, source, one), fence: one, header, source };
+    const diagnostics: Diagnostic[] = [];
+    const parsed = this.safeParse(input, diagnostics);
+    if (!parsed || diagnostics.length > 0) return null;
+    const blocks = old.blocks.map((s, i) => (i === index ? { parsed, input, start: slot.start } : shifted(s)));
+    return { text, lines: lazyLines(text), blocks, diagnostics: [] };
   }
 
   /** Records that a file could not be read, so that it still appears in the report. */
   setUnreadable(path: string, detail: string): void {
-    this.replace(path, { text: '', lines: new LineIndex(''), blocks: [], diagnostics: [at(messages.fileUnreadable(detail), { start: 0, end: 0 })] });
+    this.replace(path, { text: '', lines: lazyLines(''), blocks: [], diagnostics: [at(messages.fileUnreadable(detail), { start: 0, end: 0 })] });
   }
 
   deleteFile(path: string): void {
@@ -359,6 +410,12 @@ function locationOf(path: string, slot: BlockSlot): BlockLocation {
   return { path, kind: p.kind, id: p.id, span: shift(p.span, slot.start), idSpan: p.header.idSpan ? shift(p.header.idSpan, slot.start) : null };
 }
 
+/** A line index made on first use: most edits never need one. */
+function lazyLines(text: string): () => LineIndex {
+  let lines: LineIndex | undefined;
+  return () => (lines ??= new LineIndex(text));
+}
+
 function dataPathsOf(entry: FileEntry | null | undefined): string[] {
   const out: string[] = [];
   for (const slot of entry?.blocks ?? []) if (slot.parsed.dataPath !== null) out.push(slot.parsed.dataPath);
@@ -497,7 +554,7 @@ class AnalysisRun {
     const list = this.byId.get(block.id);
     if (!list || list.length < 2 || (list[0].file === file && list[0].start === start)) return [];
     const first = list[0];
-    const lines = this.files.get(first.file)?.lines;
+    const lines = this.files.get(first.file)?.lines();
     const line = toOneBasedPoint(lines ? lines.positionAt(first.start) : { line: 0, character: 0 }).line;
     return [at(messages.duplicateId(block.id, `${first.file}:${line}`), block.header.idSpan)];
   }

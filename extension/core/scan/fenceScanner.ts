@@ -48,6 +48,8 @@ export interface FencedBlock {
   /** The body text: body lines joined by `\n`. */
   readonly body: string;
   readonly closed: boolean;
+  /** The fence lies inside a block quote or a list item (not directly in the document). */
+  readonly nested: boolean;
 }
 
 /** Why an open fence is being closed by its container: a new container, or anything else. */
@@ -84,6 +86,7 @@ interface OpenFence {
   readonly untrimmedInfo: string;
   readonly infoSpan: Span;
   readonly lines: BodyLine[];
+  readonly nested: boolean;
   /** End of the opening fence line. */
   readonly openEnd: number;
   /** End of the last line that belongs to the block. */
@@ -521,6 +524,7 @@ class FenceScanner {
         untrimmedInfo: this.pendingInfo,
         infoSpan: { start: infoStart, end: infoStart + rawInfo.length },
         lines: [],
+        nested: this.containers.length > 1,
         openEnd: this.lineEnd,
         lastEnd: this.lineEnd,
       },
@@ -699,6 +703,7 @@ class FenceScanner {
     const body = fence.lines.map((l) => ' '.repeat(l.pad) + this.text.slice(l.start, l.end)).join('\n');
     const { lang, meta } = decodeInfoString(fence.untrimmedInfo);
     this.blocks.push({
+      nested: fence.nested,
       span: { start: fence.start, end },
       rawInfo: fence.rawInfo,
       infoSpan: fence.infoSpan,
