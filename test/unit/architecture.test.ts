@@ -123,3 +123,11 @@ describe('the extension manifest', () => {
     assert.equal(manifest.engines.vscode, '^1.100.0');
   });
 });
+
+describe('activation path', () => {
+  it('bundles the VS Code client without the engine, the analyses or a chart library', async () => {
+    const result = await esbuild.build({ entryPoints: [path.join(REPO, 'extension/vscode/extension.ts')], bundle: true, write: false, metafile: true, format: 'cjs', platform: 'node', external: ['vscode'], logLevel: 'silent' });
+    const inputs = Object.keys(result.metafile.inputs);
+    assert.deepEqual(inputs.filter((p) => /extension\/core\/|node_modules\/(vega|vega-lite|d3-[a-z-]+|mathjs|ajv|yaml)\//.test(p)), []);
+  });
+});
