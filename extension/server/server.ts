@@ -303,21 +303,23 @@ export class VitrineServer {
     const place = uri ? this.workspace.placeOf(uri) : null;
     const folders = place ? [place.folder] : this.workspace.allFolders();
     for (const folder of folders) {
-      for (const rel of folder.engine.paths()) {
+      // One analysis of the whole folder (cached blocks cost nothing), then one file at a time.
+      const report = folder.engine.analyze();
+      for (const file of report.files) {
         if (generation !== this.generation) return;
-        const other = this.workspace.uriOf(folder, rel);
+        const other = this.workspace.uriOf(folder, file.path);
         if (other === uri) continue;
-        this.publish(other);
+        this.publish(other, file);
         await new Promise((r) => setImmediate(r));
       }
     }
   }
 
-  private publish(uri: string): void {
+  private publish(uri: string, report?: FileReport): void {
     // In onSave mode an edited document keeps the diagnostics of its last save.
     if (this.settings.diagnostics.run === 'onSave' && this.dirty.has(uri)) return;
     const text = this.workspace.textOf(uri);
-    const file = this.fileReport(uri);
+    const file = report ?? this.fileReport(uri);
     if (!text || !file) {
       if (this.published.has(uri)) {
         this.published.delete(uri);
