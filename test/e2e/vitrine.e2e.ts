@@ -98,6 +98,19 @@ describe('Vitrine in VS Code (code-server)', function () {
     await wb.screenshot('lens.png');
   });
 
+  it('logs how long its activation took', async () => {
+    // The extension writes "activated in N ms" to its log channel; VS Code keeps it under the run folder.
+    const found = (dir: string): string[] =>
+      readdirSync(dir, { withFileTypes: true }).flatMap((e) => (e.isDirectory() ? found(join(dir, e.name)) : e.name === 'Vitrine charts.log' ? [join(dir, e.name)] : []));
+    let line: string | undefined;
+    for (let i = 0; i < 60 && !line; i++) {
+      line = found(join(server!.root, 'ud/logs')).map((f) => readFileSync(f, 'utf8')).join('\n').match(/activated in [\d.]+ ms/)?.[0];
+      if (!line) await new Promise((r) => setTimeout(r, 500));
+    }
+    assert.ok(line, 'no activation time in the log');
+    console.log(`    extension ${line}`);
+  });
+
   it('renders data blocks as a chart and figures in the markdown preview', async () => {
     await wb.closeAllEditors();
     await wb.openFile(NOTEBOOK_DAY);
