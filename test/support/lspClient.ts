@@ -33,7 +33,10 @@ export function uriOf(file: string): string {
 export async function startServer(root: string, settings: unknown = {}, capabilities: Record<string, unknown> = {}): Promise<Client> {
   if (!fs.existsSync(SERVER)) throw new Error('build the server first: npm run build');
   const proc = spawn(process.execPath, [SERVER, '--stdio'], { stdio: ['pipe', 'pipe', 'pipe'] });
+  // A message still on its way when the server stops is of no interest: ignore broken pipes.
+  proc.stdin!.on('error', () => undefined);
   const connection = createMessageConnection(new StreamMessageReader(proc.stdout!), new StreamMessageWriter(proc.stdin!));
+  connection.onError(() => undefined);
   const diagnostics = new Map<string, PublishDiagnosticsParams>();
   const log: string[] = [];
   const waiters: Array<() => void> = [];
