@@ -11,9 +11,11 @@
 import * as path from 'node:path';
 import { countDiagnostics, formatDiagnosticLine, summarise, toJsonReport, type JsonReport } from '../core/index.js';
 import { loadRoot, rootsOf, RootError, type RootRun } from '../node/notebookRoots.js';
+import { ioErrorText } from '../node/notebookText.js';
 import { progressBar, type Progress } from './progress.js';
-import { writeReport } from './report.js';
+import { OutputError, writeReport } from './report.js';
 import { summaryTable } from './summaryTable.js';
+import { terminalJson, terminalText } from './terminalText.js';
 
 const USAGE = `usage: vitrine <command> PATH... [options]
 
@@ -33,9 +35,12 @@ options:
   -h, --help               show this help
   --version                print the version
 
-A directory is a notebook root: every .md file below it is read and references are resolved
-across them. A file is read with the other files of its folder, unless --root names the notebook
-folder. Exit status: 0 no errors, 1 errors found, 2 usage or internal failure.`;
+A directory is a notebook root: every .md file below it is read (hidden folders and
+node_modules are skipped) and references are resolved across them. A file named here is read
+whatever its extension, with the other files of its folder, unless --root names the notebook
+folder. report never writes over a notebook file or through a symbolic link, and writes
+nothing when any of its outputs fails. Exit status: 0 no errors, 1 errors found, 2 usage error,
+refused output, or a failure.`;
 
 export interface CliIo {
   readonly out: (text: string) => void;
@@ -73,15 +78,33 @@ function displayPath(root: string, rel: string, cwd: string): string {
   return shown.split(path.sep).join('/');
 }
 
+/** A failure of the operating system (a file that cannot be read or written), not of Vitrine. */
+function isSystemError(e: unknown): e is NodeJS.ErrnoException {
+  return e instanceof Error && typeof (e as NodeJS.ErrnoException).code === 'string' && typeof (e as NodeJS.ErrnoException).syscall === 'string';
+}
+
+/**
+ * Runs the command. Every line printed goes through `terminalText`: control characters from a
+ * notebook (in a path, a key, a cell) are shown escaped, never sent to the terminal.
+ */
 export async function runCli(argv: readonly string[], io: CliIo): Promise<number> {
+  const shown: CliIo = { ...io, out: (t) => io.out(terminalText(t)), err: (t) => io.err(terminalText(t)) };
   try {
-    return await dispatch(argv, io);
+    return await dispatch(argv, shown, io.err);
   } catch (e) {
     if (e instanceof UsageError) {
-      io.err(`vitrine: ${e.message}\n\n${USAGE}\n`);
+      shown.err(`vitrine: ${e.message}\n\n${USAGE}\n`);
       return 2;
     }
-    io.err(`vitrine: internal error: ${e instanceof Error ? e.message : String(e)}\n`);
+    if (e instanceof OutputError) {
+      shown.err(`vitrine: ${e.message}\n`);
+      return 2;
+    }
+    if (isSystemError(e)) {
+      shown.err(`vitrine: ${e.path ? `${e.path}: ` : ''}${ioErrorText(e)} (${e.code} in ${e.syscall})\n`);
+      return 2;
+    }
+    shown.err(`vitrine: internal error: ${e instanceof Error ? e.message : String(e)}\n`);
     return 2;
   }
 }
@@ -96,7 +119,8 @@ function takeOption(args: string[], names: readonly string[]): string | undefine
   return value;
 }
 
-async function dispatch(argv: readonly string[], io: CliIo): Promise<number> {
+/** `rawErr` writes to standard error unescaped: only the progress bar's own carriage returns use it. */
+async function dispatch(argv: readonly string[], io: CliIo, rawErr: (text: string) => void): Promise<number> {
   const args = [...argv];
   if (args.length === 0 || args.includes('-h') || args.includes('--help')) {
     io.out(USAGE + '\n');
@@ -108,7 +132,7 @@ async function dispatch(argv: readonly string[], io: CliIo): Promise<number> {
   }
   const command = args.shift();
   const root = takeOption(args, ['--root']);
-  if (command === 'report') return report(args, io, root);
+  if (command === 'report') return report(args, io, root, rawErr);
   const flags = new Set(args.filter((a) => a.startsWith('-')));
   const paths = args.filter((a) => !a.startsWith('-'));
   const known = command === 'check' ? ['--summary', '--quiet'] : command === 'analyze' ? ['--json'] : [];
@@ -119,6 +143,7 @@ async function dispatch(argv: readonly string[], io: CliIo): Promise<number> {
   if (command === 'analyze' && !flags.has('--json')) throw new UsageError('analyze writes JSON: add --json');
 
   const all = runs(paths, io.cwd, null, root);
+  if (command === 'check') noteSkipped(all, io);
   const { error: errors, warning: warnings } = totals(all);
   const json: JsonReport = { files: [] };
   for (const run of all) {
@@ -133,7 +158,7 @@ async function dispatch(argv: readonly string[], io: CliIo): Promise<number> {
     }
   }
   if (command === 'analyze') {
-    io.out(JSON.stringify(json, null, 2) + '\n');
+    io.out(terminalJson(json) + '\n');
   } else {
     const fileCount = json.files.length;
     const blockCount = json.files.reduce((n, f) => n + f.blocks.length, 0);
@@ -146,7 +171,15 @@ async function dispatch(argv: readonly string[], io: CliIo): Promise<number> {
   return errors > 0 ? 1 : 0;
 }
 
-async function report(args: string[], io: CliIo, root: string | undefined): Promise<number> {
+/** One line on standard error naming the tool folders that were not searched for notebooks. */
+function noteSkipped(all: readonly RootRun[], io: CliIo): void {
+  const names = [...new Set(all.flatMap((r) => (all.length === 1 ? r.skipped : r.skipped.map((s) => displayPath(r.root, s, io.cwd)))))];
+  if (names.length === 0) return;
+  const shown = names.length > 12 ? `${names.slice(0, 12).join(', ')} and ${names.length - 12} more` : names.join(', ');
+  io.err(`vitrine: skipped ${shown} (hidden folders and node_modules are not searched for notebooks)\n`);
+}
+
+async function report(args: string[], io: CliIo, root: string | undefined, rawErr: (text: string) => void): Promise<number> {
   const output = takeOption(args, ['-o', '--output']);
   const csv = takeOption(args, ['--csv']);
   const png = takeOption(args, ['--png']);
@@ -154,9 +187,16 @@ async function report(args: string[], io: CliIo, root: string | undefined): Prom
   if (unknown) throw new UsageError(`unknown option "${unknown}" for report`);
   if (!output) throw new UsageError('report needs -o FILE');
   if (args.length === 0) throw new UsageError('report needs at least one PATH');
-  const progress = io.errIsTty ? progressBar(io.err) : null;
+  const progress = io.errIsTty ? progressBar(rawErr) : null;
   const all = runs(args, io.cwd, progress, root);
-  const written = await writeReport(all, { output: path.resolve(io.cwd, output), csv: csv ? path.resolve(io.cwd, csv) : undefined, png: png ? path.resolve(io.cwd, png) : undefined, title: args.length === 1 ? `Vitrine report: ${path.basename(path.resolve(io.cwd, args[0]))}` : 'Vitrine report' });
-  for (const line of written) io.out(line + '\n');
+  const written = await writeReport(all, {
+    output: path.resolve(io.cwd, output),
+    csv: csv ? path.resolve(io.cwd, csv) : undefined,
+    png: png ? path.resolve(io.cwd, png) : undefined,
+    title: args.length === 1 ? `Vitrine report: ${path.basename(path.resolve(io.cwd, args[0]))}` : 'Vitrine report',
+    roots: all.map((r) => r.root),
+  });
+  for (const w of written.warnings) io.err(`vitrine: ${w}\n`);
+  for (const line of written.lines) io.out(line + '\n');
   return totals(all).error > 0 ? 1 : 0;
 }

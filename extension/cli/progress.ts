@@ -1,4 +1,9 @@
-/** A progress bar on standard error, drawn only on a terminal and only for many files. */
+/**
+ * A progress bar on standard error, drawn only on a terminal and only for many files. It writes
+ * its own carriage returns; the file name in it is shown with control characters escaped.
+ */
+import { terminalText } from './terminalText.js';
+
 export interface Progress {
   update(done: number, total: number, what: string): void;
   done(): void;
@@ -11,7 +16,8 @@ export function progressBar(write: (text: string) => void, minimum = 20): Progre
       if (total < minimum) return;
       const width = 30;
       const filled = Math.round((width * done) / total);
-      const name = what.length > 40 ? '…' + what.slice(-39) : what;
+      const safe = terminalText(what);
+      const name = safe.length > 40 ? '…' + safe.slice(-39) : safe;
       write(`\r[${'#'.repeat(filled)}${' '.repeat(width - filled)}] ${done}/${total} ${name.padEnd(40)}`);
       drawn = true;
     },

@@ -4,7 +4,7 @@
  * (`charts/index.ts`, `report/index.ts`), so that the engine alone carries no chart library.
  */
 export { Notebook, type AnalyzeOptions, type BlockLocation, type BlockReference, type CancellationToken, type MetadataEntry, type NotebookOptions } from './engine/notebook.js';
-export { InMemoryHost, NO_FILES, type NotebookHost, type DataFileRead } from './engine/host.js';
+export { InMemoryHost, MAX_NOTEBOOK_FILE_BYTES, NO_FILES, type NotebookFileFailure, type NotebookHost, type DataFileRead } from './engine/host.js';
 export { MAX_DATA_FILE_BYTES, type DataFileFailure } from './engine/dataFiles.js';
 export { toJsonReport, formatDiagnosticLine, type JsonReport, type JsonDiagnostic } from './engine/jsonReport.js';
 export { summarise, type FilmSummary } from './engine/summary.js';

@@ -2,6 +2,8 @@
 import * as fs from 'node:fs';
 import * as path from 'node:path';
 import type { DataFileRead, NotebookHost } from '../core/index.js';
+import { isInside } from './insidePath.js';
+import { fileTypeName, ioErrorText } from './notebookText.js';
 
 export class FileHost implements NotebookHost {
   private readonly realRoot: string;
@@ -15,18 +17,21 @@ export class FileHost implements NotebookHost {
     let real: string;
     try {
       real = fs.realpathSync(full);
-    } catch {
-      return { ok: false, reason: 'missing' };
+    } catch (e) {
+      const code = (e as NodeJS.ErrnoException).code;
+      // A missing file, or a path through something that is not a folder: it does not exist.
+      if (code === 'ENOENT' || code === 'ENOTDIR') return { ok: false, reason: 'missing' };
+      return { ok: false, reason: 'unreadable', detail: ioErrorText(e) };
     }
-    const rel = path.relative(this.realRoot, real);
-    if (rel.startsWith('..') || path.isAbsolute(rel)) return { ok: false, reason: 'outside-root' };
+    if (!isInside(this.realRoot, real)) return { ok: false, reason: 'outside-root' };
     try {
       const stat = fs.statSync(real);
-      if (!stat.isFile()) return { ok: false, reason: 'unreadable', detail: 'not a regular file' };
+      if (stat.isDirectory()) return { ok: false, reason: 'folder' };
+      if (!stat.isFile()) return { ok: false, reason: 'unreadable', detail: `it is ${fileTypeName(stat)}, not a regular file` };
       if (stat.size > maxBytes) return { ok: false, reason: 'too-large', size: stat.size };
       return { ok: true, text: fs.readFileSync(real, 'utf8') };
     } catch (e) {
-      return { ok: false, reason: 'unreadable', detail: e instanceof Error ? e.message : String(e) };
+      return { ok: false, reason: 'unreadable', detail: ioErrorText(e) };
     }
   }
 }

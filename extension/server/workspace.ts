@@ -9,6 +9,7 @@ import { fileURLToPath, pathToFileURL } from 'node:url';
 import { MAX_DATA_FILE_BYTES, Notebook, type NotebookOptions } from '../core/index.js';
 import { markdownFiles } from '../node/discovery.js';
 import { FileHost } from '../node/fileHost.js';
+import { readNotebookFile } from '../node/notebookText.js';
 import { DocumentText, type PositionSource } from './documentText.js';
 
 export interface Folder {
@@ -183,13 +184,15 @@ export class Workspace {
   private loadFromDisk(folder: Folder, rel: string): void {
     const uri = this.uriOf(folder, rel);
     if (this.open.has(uri)) return;
-    try {
-      const text = fs.readFileSync(path.join(folder.root, ...rel.split('/')), 'utf8');
-      this.disk.set(uri, new DocumentText(text));
-      folder.engine.setFile(rel, text);
-    } catch (e) {
-      this.log(`cannot read ${rel}: ${e instanceof Error ? e.message : String(e)}`);
-      folder.engine.setUnreadable(rel, e instanceof Error ? e.message : String(e));
+    // Decoded as notebooks are everywhere (UTF-8, UTF-16 with a BOM), size checked before reading.
+    const read = readNotebookFile(path.join(folder.root, ...rel.split('/')));
+    if (read.ok) {
+      this.disk.set(uri, new DocumentText(read.text));
+      folder.engine.setFile(rel, read.text);
+    } else {
+      this.log(`cannot read ${rel}: ${read.failure.reason}`);
+      this.disk.delete(uri);
+      folder.engine.setFileFailure(rel, read.failure);
     }
   }
 

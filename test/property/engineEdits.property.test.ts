@@ -2,6 +2,7 @@ import assert from 'node:assert/strict';
 import fc from 'fast-check';
 import { Notebook, type DataFileFailure, type DataFileRead, type NotebookHost } from '../../extension/core/index.js';
 import { DEPOSITION_BLOCK, MATERIAL_BLOCK, tableBlock } from '../support/synthetic.js';
+import { propertyOptions } from '../support/propertyOptions.js';
 
 // A warm engine that has seen any sequence of edits must report exactly what a fresh engine
 // reports on the final texts: the caches may save work, never change an answer.
@@ -114,7 +115,7 @@ describe('the engine after random edits', () => {
         const id = 'D-1';
         assert.equal(warm.inputsHashOf(id), cold.inputsHashOf(id));
       }),
-      { numRuns: Number(process.env.RUNS ?? 150), seed: Number(process.env.SEED ?? 11) },
+      propertyOptions(150, 11),
     );
   });
 });
@@ -176,7 +177,7 @@ describe('the engine while typing', () => {
         cold.setFile('n.md', text);
         assert.deepEqual(warm.analyze(), cold.analyze());
       }),
-      { numRuns: Number(process.env.RUNS ?? 300), seed: Number(process.env.SEED ?? 13) },
+      propertyOptions(300, 13),
     );
   });
 });

@@ -1,13 +1,14 @@
 import assert from 'node:assert/strict';
 import fc from 'fast-check';
 import { InMemoryHost, LineIndex, Notebook, toJsonReport } from '../../extension/core/index.js';
+import { propertyOptions } from '../support/propertyOptions.js';
 
 // Notebooks built from realistic pieces, then mutated character by character: the core must
-// never throw, and every diagnostic must lie inside its document.
+// never throw, every diagnostic must lie inside its document, and every figure must be finite.
 const kinds = ['material', 'deposition', 'ramp', 'isotherm', 'dsc', 'relaxation', 'results', 'python', ''];
 const keys = ['name', 'tg', 'material', 'film', 'substrate_temperature', 'rate', 'duration', 'thickness', 'base_pressure', 'data', 'vft', 'columns', 'of', 'inputs', 'direction', 'windows', 'temperature', 'quantity', 'mass'];
-const values = ['281 K', '8 °C', '0.2 nm/s', '10 K/min', '1e-8 Torr', '2000', 'M-1', 'D-1', '[1, 2', '{a: b}', '"x"', 'NaN', '-', 'data.csv', '../x.csv', '/etc/passwd', '', '  log10_tau0: -14', '  B: 700 K', '&anchor x', '*anchor', '!!binary AAAA'];
-const rows = ['T/K, h/nm', '300, 100', '301,abc', 't/s\tT/K\th/nm', '1;2;3', '# c', 'NaN, inf', '', '1,5; 2,5'];
+const values = ['281 K', '8 °C', '0.2 nm/s', '10 K/min', '1e-8 Torr', '2000', 'M-1', 'D-1', '[1, 2', '{a: b}', '"x"', 'NaN', '-', 'data.csv', '../x.csv', '/etc/passwd', '', '  log10_tau0: -14', '  B: 700 K', '&anchor x', '*anchor', '!!binary AAAA', '-5 K', '0 K', '1e-320 K', '1e300 nm/s', '-1e400', '[[[[[[[[[['];
+const rows = ['T/K, h/nm', '300, 100', '301,abc', 't/s\tT/K\th/nm', '1;2;3', '# c', 'NaN, inf', '', '1,5; 2,5', '-290, 1', '1e-320, 1e300'];
 
 const block = fc
   .tuple(fc.constantFrom(...kinds), fc.constantFrom('M-1', 'D-1', 'R-1', '', 'x y', '<b>'), fc.array(fc.tuple(fc.constantFrom(...keys), fc.constantFrom(...values)), { maxLength: 6 }), fc.option(fc.array(fc.constantFrom(...rows), { maxLength: 5 })), fc.constantFrom('```', '~~~', '````'), fc.constantFrom('', '> ', '- ', '   '), fc.boolean())
@@ -50,9 +51,12 @@ describe('the core on generated and mutated notebooks', () => {
             assert.ok(d.line >= 1 && d.endLine <= lineCount && d.column >= 1, `${d.code} line ${d.line}`);
             assert.notEqual(d.code, 'internal.error', d.message);
           }
+          for (const b of f.blocks) {
+            for (const [name, r] of Object.entries(b.results)) assert.ok(Number.isFinite(r.value), `${name} = ${r.value} is reported`);
+          }
         }
       }),
-      { numRuns: Number(process.env.RUNS ?? 2000), seed: Number(process.env.SEED ?? 7) },
+      propertyOptions(2000, 7),
     );
   });
 });

@@ -97,9 +97,15 @@ export function moynihanTf(a: number, b: number, t2: number, area: number): numb
   return candidates.length === 0 ? NaN : Math.max(...candidates);
 }
 
+/** Rows a scan needs: baselines of at least 3 points on both sides of a step. */
+const MIN_DSC_ROWS = 10;
+
 export function analyzeDsc(block: ParsedBlock, ctx: AnalysisContext): Analysis {
   const diagnostics: Diagnostic[] = [];
   const results: Record<string, ResultValue> = {};
+  const refId = block.metadata.data.reference;
+  const selfReference = typeof refId === 'string' && refId === block.id;
+  if (selfReference) diagnostics.push(at(messages.dscReferenceSelf(refId), block.spanOf('/reference')));
   const table = block.table;
   if (!table || table.rowCount === 0) return { results, diagnostics };
   const curve = dscCurve(block);
@@ -110,7 +116,10 @@ export function analyzeDsc(block: ParsedBlock, ctx: AnalysisContext): Analysis {
   }
   const { T, cp } = curve;
   const n = T.length;
-  if (n < 10) return { results, diagnostics };
+  if (n < MIN_DSC_ROWS) {
+    diagnostics.push(at(messages.tableTooFewRows('dsc', n, MIN_DSC_ROWS, 'to fit the glass and liquid baselines on both sides of the step'), block.header.kindSpan));
+    return { results, diagnostics };
+  }
   const range = T[n - 1] - T[0];
   const glassW = window(block, 'glass', [T[0], T[0] + 0.2 * range]);
   const liquidW = window(block, 'liquid', [T[n - 1] - 0.15 * range, T[n - 1]]);
@@ -189,9 +198,8 @@ export function analyzeDsc(block: ParsedBlock, ctx: AnalysisContext): Analysis {
     else results.tfictive = result(tf, 'K', `Moynihan area matching between ${Number(t1.toPrecision(5))} and ${Number(t2.toPrecision(5))} K`);
   }
 
-  // Enthalpy gap against the liquid-cooled reference scan.
-  const refId = block.metadata.data.reference;
-  const ref = typeof refId === 'string' ? ctx.lookup(refId, 'dsc') : undefined;
+  // Enthalpy gap against the liquid-cooled reference scan (never the scan itself: the gap would be 0 by construction).
+  const ref = typeof refId === 'string' && !selfReference ? ctx.lookup(refId, 'dsc') : undefined;
   if (ref) {
     const refCurve = dscCurve(ref);
     const rate = block.quantities.get('/rate')?.value;

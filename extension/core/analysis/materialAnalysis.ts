@@ -20,7 +20,7 @@ export function statedVft(block: ParsedBlock): { p: VftParameters; sd: [number, 
   const A = v?.log10_tau0;
   const B = block.quantities.get('/vft/B');
   const T0 = block.quantities.get('/vft/T0');
-  if (typeof A !== 'number' || !B || !T0) return null;
+  if (typeof A !== 'number' || !Number.isFinite(A) || !B || !T0) return null;
   return { p: { log10Tau0: A, B: B.value, T0: T0.value }, sd: [0, B.uncertainty ?? 0, T0.uncertainty ?? 0] };
 }
 

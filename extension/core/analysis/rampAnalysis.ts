@@ -37,6 +37,9 @@ import { filmOf, materialOf, metadataWindow as window } from './blockLinks.js';
 import { statedTg } from './materialAnalysis.js';
 import { segmentScan, type Segment } from './segments.js';
 
+/** Rows below which no figure can be computed: the first heating needs 10, Tg 8 on each side of it. */
+const MIN_RAMP_ROWS = 10;
+
 /** Distance from Tg of the glass and liquid lines used for extrapolation, K. */
 const LINE_GAP = 5;
 
@@ -115,6 +118,10 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext, choices: R
   if (!Tcol || !hcol) {
     // A header problem was already reported by the table reader.
     if (table.problems.length === 0) note(messages.rampNoThickness(), block.spanOf('/data'));
+    return empty;
+  }
+  if (table.rowCount < MIN_RAMP_ROWS) {
+    note(messages.tableTooFewRows('ramp', table.rowCount, MIN_RAMP_ROWS, 'for any figure (a first heating needs 10, and Tg 8 on each side of the transition while cooling)'), block.header.kindSpan);
     return empty;
   }
   const curve: Curve = { T: Tcol.values, h: hcol.values };

@@ -5,7 +5,10 @@
  * B). Flags from METHODS.md §5: fewer than 4 points, τ ≤ 0, fewer than 3 decades, T0 within 5 K
  * of T_min or ≤ 0, longest τ below 1 s.
  *
- * Policy: rows with τ ≤ 0 are reported and left out; the rest are fitted.
+ * Policy: rows with τ ≤ 0 are reported and left out; the rest are fitted. A fit is refused, with
+ * an error that says why and no VFT parameters, when the data hold fewer than 3 distinct
+ * temperatures, or when it gives B ≤ 0 or T0 at or above the lowest measured temperature (the
+ * law then has no meaning over the data: τ would rise with T, or diverge inside the range).
  */
 import { at, type Diagnostic } from '../model/diagnostic.js';
 import { messages } from '../model/messages.js';
@@ -75,12 +78,26 @@ export function analyzeRelaxation(block: ParsedBlock, _ctx: AnalysisContext): An
     diagnostics.push(at(messages.relaxTooFew(good), block.header.kindSpan));
     return { results, diagnostics };
   }
+  const temperatures = new Set<number>();
+  for (let i = 0; i < tau.length; i++) if (tau[i] > 0) temperatures.add(T[i]);
+  if (temperatures.size < 3) {
+    diagnostics.push(at(messages.relaxFewTemperatures(temperatures.size), block.header.kindSpan));
+    return { results, diagnostics };
+  }
   const r = relaxationFit(block);
   if (!r) {
     diagnostics.push(at(messages.relaxNoFit(), block.header.kindSpan));
     return { results, diagnostics };
   }
   const { fit } = r;
+  if (!(fit.B > 0)) {
+    diagnostics.push(at(messages.relaxVftBNotPositive(fit.B), block.header.kindSpan));
+    return { results, diagnostics };
+  }
+  if (!(fit.T0 < r.tmin)) {
+    diagnostics.push(at(messages.relaxVftT0AboveData(fit.T0, r.tmin), block.header.kindSpan));
+    return { results, diagnostics };
+  }
   const se = (k: number): number | undefined => (fit.covariance ? Math.sqrt(Math.max(0, fit.covariance[k][k])) : undefined);
   const method = 'decadic VFT fit of log10 τ by variable projection, polished by Levenberg–Marquardt';
   results.vft_log10_tau0 = result(fit.A, '1', method, se(0));

@@ -129,7 +129,7 @@ export interface DataTableSource {
 
 export type DataTableRead =
   | { readonly ok: true; readonly table: Table; /** Changes whenever the file's content does. */ readonly stamp: string }
-  | { readonly ok: false; readonly reason: 'missing' | 'too-large' | 'outside-root' | 'unreadable'; readonly stamp: string; readonly size?: number; readonly limit?: number; readonly detail?: string };
+  | { readonly ok: false; readonly reason: 'missing' | 'too-large' | 'outside-root' | 'folder' | 'unreadable'; readonly stamp: string; readonly size?: number; readonly limit?: number; readonly detail?: string };
 
 export interface ParseInput {
   readonly file: string;
@@ -192,6 +192,8 @@ export function parseBlock(input: ParseInput, data: DataTableSource): ParsedBloc
   if (isEmpty) push(messages.blockEmpty(kind), headerSpan);
   for (const p of metadata.problems) push(messages.yamlSyntax(p.message), toDoc(p.span));
   if (metadata.notAMap) push(messages.yamlNotMap(), toDoc({ start: 0, end: metaText.length }));
+  if (metadata.tooDeep !== undefined) push(messages.yamlTooDeep(metadata.tooDeep), toDoc({ start: 0, end: metaText.includes('\n') ? metaText.indexOf('\n') : metaText.length }));
+  const unread = metadata.notAMap || metadata.tooDeep !== undefined;
 
   const spanOf = (pointer: string, atKey = false): Span => {
     const e = metadata.spans.get(pointer);
@@ -200,7 +202,7 @@ export function parseBlock(input: ParseInput, data: DataTableSource): ParsedBloc
   };
 
   // Schema.
-  if (!isEmpty && !metadata.notAMap) {
+  if (!isEmpty && !unread) {
     for (const p of validateMetadata(kind, metadata.data)) {
       const span = p.pointer === '' ? headerSpan : spanOf(p.pointer, p.atKey);
       push(p.message, span);
@@ -215,7 +217,8 @@ export function parseBlock(input: ParseInput, data: DataTableSource): ParsedBloc
   for (const field of fieldsOf(kind)) {
     for (const pointer of matchingPointers(metadata.data, field.segments)) {
       const raw = valueAt(metadata.data, pointer);
-      if (typeof raw !== 'string' && typeof raw !== 'number') continue; // the schema reported it
+      // Not text or a finite number: the schema reported it.
+      if (typeof raw !== 'string' && !(typeof raw === 'number' && Number.isFinite(raw))) continue;
       const label = keyLabel(pointer);
       const c = CANONICAL[field.dimension];
       const parsed = parseQuantity(raw, field.dimension);
@@ -230,6 +233,17 @@ export function parseBlock(input: ParseInput, data: DataTableSource): ParsedBloc
       if (parsed.assumedUnit) {
         const unit = c.unit === 'J/(g*K)' ? 'J/(g*K)' : c.unit;
         diagnostics.push({ ...at(messages.quantityBareNumber(label, c.unit), span), fix: { title: `Write the unit: ${raw} ${unit}`, span, newText: `${raw} ${unit}` } });
+      }
+      // Out of range: reported, and not used by any analysis.
+      const value = parsed.quantity.value;
+      // VFT's T0 may be 0 K exactly: the Arrhenius law is its limit.
+      if (field.dimension === 'temperature' && !(value > 0) && !(pointer === '/vft/T0' && value === 0)) {
+        push(messages.quantityNotAboveAbsoluteZero(label, value), span);
+        continue;
+      }
+      if (field.exclusiveMinimum !== undefined && !(value > field.exclusiveMinimum)) {
+        push(messages.quantityNotAbove(label, c.words, field.exclusiveMinimum, c.unit), span);
+        continue;
       }
       quantities.set(pointer, parsed.quantity);
     }
@@ -273,7 +287,10 @@ export function parseBlock(input: ParseInput, data: DataTableSource): ParsedBloc
       const valueSpan = spanOf('/data');
       const resolved = resolveNotebookPath(input.file, dataValue);
       if (!resolved.ok) {
-        push(resolved.reason === 'absolute' ? messages.dataAbsolute(dataValue) : messages.dataOutsideRoot(dataValue), valueSpan);
+        if (resolved.reason === 'absolute') push(messages.dataAbsolute(dataValue), valueSpan);
+        else if (resolved.reason === 'folder') push(messages.dataIsFolder(dataValue), valueSpan);
+        else if (resolved.reason === 'outside') push(messages.dataOutsideRoot(dataValue), valueSpan);
+        else if (dataValue.length > 0) push(messages.badPattern('data', 'a file path, not blank'), valueSpan);
       } else {
         dataPath = resolved.path;
         const read = data.table(resolved.path, columnsMap);
@@ -282,6 +299,7 @@ export function parseBlock(input: ParseInput, data: DataTableSource): ParsedBloc
           if (read.reason === 'missing') push(messages.dataMissing(dataValue), valueSpan);
           else if (read.reason === 'too-large') push(messages.dataTooLarge(dataValue, read.size ?? 0, read.limit ?? 0), valueSpan);
           else if (read.reason === 'outside-root') push(messages.dataOutsideRoot(dataValue), valueSpan);
+          else if (read.reason === 'folder') push(messages.dataIsFolder(dataValue), valueSpan);
           else push(messages.dataUnreadable(dataValue, read.detail ?? 'unknown error'), valueSpan);
         } else {
           table = read.table;
@@ -303,7 +321,7 @@ export function parseBlock(input: ParseInput, data: DataTableSource): ParsedBloc
           }
         }
       }
-    } else if (!(metadata.problems.length > 0)) {
+    } else if (!(metadata.problems.length > 0) && metadata.tooDeep === undefined) {
       push(messages.tableNoData(kind), headerSpan);
     }
   }

@@ -7,9 +7,18 @@
  * the engine asks the host only for a data file it has never been given.
  */
 
+/**
+ * Notebook (markdown) files larger than this are refused with a `file.too-large` diagnostic:
+ * a host checks the size before it reads the file, and the engine refuses longer text.
+ */
+export const MAX_NOTEBOOK_FILE_BYTES = 16 * 1024 * 1024;
+
+/** Why a notebook file has no text: it cannot be read, or it is larger than the limit. */
+export type NotebookFileFailure = { readonly reason: 'unreadable'; readonly detail: string } | { readonly reason: 'too-large'; readonly size: number; readonly limit: number };
+
 export type DataFileRead =
   | { readonly ok: true; readonly text: string }
-  | { readonly ok: false; readonly reason: 'missing' | 'too-large' | 'outside-root' | 'unreadable'; readonly size?: number; readonly detail?: string };
+  | { readonly ok: false; readonly reason: 'missing' | 'too-large' | 'outside-root' | 'folder' | 'unreadable'; readonly size?: number; readonly detail?: string };
 
 export interface NotebookHost {
   /**

@@ -21,6 +21,7 @@
  * diagnostic on its block and the rest of the notebook is still analysed.
  */
 import { ANALYZERS } from '../analysis/analyzers.js';
+import { finiteFigure, finiteResults } from '../analysis/finiteResults.js';
 import { plausibilityWarnings } from '../analysis/plausibility.js';
 import { Cancelled, type Analysis, type AnalysisContext } from '../analysis/context.js';
 import { blockTextKey, parseBlock, type ParsedBlock, type ParseInput } from '../block/parseBlock.js';
@@ -36,7 +37,7 @@ import { hashParts } from '../text/hash.js';
 import { LineIndex, stripBom, toOneBasedPoint } from '../text/positions.js';
 import { DataFiles, MAX_DATA_FILE_BYTES, type DataFileFailure } from './dataFiles.js';
 import { editRegion, lineBounds, plainLines, withinLineText } from './editRegion.js';
-import type { NotebookHost } from './host.js';
+import { MAX_NOTEBOOK_FILE_BYTES, type NotebookFileFailure, type NotebookHost } from './host.js';
 
 export type { BlockReport, FileReport, NotebookReport };
 
@@ -139,6 +140,10 @@ export class Notebook {
    * the changed block is scanned again, or none.
    */
   setFile(path: string, rawText: string): void {
+    if (rawText.length > MAX_NOTEBOOK_FILE_BYTES) {
+      this.setFileFailure(path, { reason: 'too-large', size: rawText.length, limit: MAX_NOTEBOOK_FILE_BYTES });
+      return;
+    }
     const text = stripBom(rawText);
     const old = this.files.get(path);
     if (old && old.diagnostics.length === 0) {
@@ -208,7 +213,13 @@ export class Notebook {
 
   /** Records that a file could not be read, so that it still appears in the report. */
   setUnreadable(path: string, detail: string): void {
-    this.replace(path, { text: '', lines: lazyLines(''), blocks: [], diagnostics: [at(messages.fileUnreadable(detail), { start: 0, end: 0 })] });
+    this.setFileFailure(path, { reason: 'unreadable', detail });
+  }
+
+  /** Records why a file has no text (unreadable, too large), so that it still appears in the report. */
+  setFileFailure(path: string, failure: NotebookFileFailure): void {
+    const message = failure.reason === 'too-large' ? messages.fileTooLarge(failure.size, failure.limit) : messages.fileUnreadable(failure.detail);
+    this.replace(path, { text: '', lines: lazyLines(''), blocks: [], diagnostics: [at(message, { start: 0, end: 0 })] });
   }
 
   deleteFile(path: string): void {
@@ -514,7 +525,15 @@ class AnalysisRun {
     try {
       this.stats.analysed++;
       const raw = ANALYZERS[block.kind](block, ctx);
-      analysis = { ...raw, diagnostics: [...raw.diagnostics, ...plausibilityWarnings(raw.results, block.header.idSpan ?? block.header.kindSpan)] };
+      // Only finite figures leave the engine (finiteResults.ts), checked here once for every kind.
+      const span = block.header.idSpan ?? block.header.kindSpan;
+      const finite = finiteResults(raw.results, span);
+      analysis = {
+        ...raw,
+        results: finite.results,
+        diagnostics: [...raw.diagnostics, ...finite.diagnostics, ...plausibilityWarnings(finite.results, span)],
+        ...(raw.figure ? { figure: finiteFigure(raw.figure) } : {}),
+      };
     } catch (e) {
       this.inProgress.delete(block);
       if (e instanceof Cancelled) throw e;

@@ -33,6 +33,8 @@ export const messages = {
   // YAML
   yamlSyntax: (detail: string) => msg('yaml.syntax', 'error', `The metadata is not valid YAML: ${detail}`),
   yamlNotMap: () => msg('yaml.not-a-map', 'error', 'The metadata must be a list of "key: value" lines.'),
+  yamlTooDeep: (limit: number) =>
+    msg('yaml.too-deep', 'error', `The metadata is nested too deeply (more than ${limit} levels of maps and lists); Vitrine reads none of it. Flatten it.`),
 
   // Schema
   missingRequired: (key: string, kind: string, hint: string) =>
@@ -58,6 +60,10 @@ export const messages = {
   quantityWrongDimension: (key: string, unit: string, words: string, example: string) =>
     msg('quantity.wrong-dimension', 'error', `"${key}" must be ${words}, but "${unit}" is not; e.g. "${example}".`),
   quantityNotFinite: (key: string) => msg('quantity.not-finite', 'error', `"${key}" must be a finite number.`),
+  quantityNotAboveAbsoluteZero: (key: string, kelvin: number) =>
+    msg('meta.out-of-range', 'error', `"${key}" is ${fmt(kelvin)} K, at or below absolute zero: an absolute temperature must be above 0 K. Check the value and its unit.`),
+  quantityNotAbove: (key: string, words: string, limit: number, unit: string) =>
+    msg('meta.out-of-range', 'error', `"${key}" must be ${words} greater than ${limit === 0 ? 'zero' : `${fmt(limit)} ${unit}`}.`),
   quantityBareNumber: (key: string, unit: string) =>
     msg('quantity.bare-number', 'warning', `"${key}" has no unit; Vitrine assumes ${unit}. Write the unit to make it explicit.`),
   temperatureLooksCelsius: (key: string, kelvin: number) =>
@@ -83,6 +89,14 @@ export const messages = {
   tableEmptyCell: (header: string) => msg('table.empty-cell', 'error', `The cell in column "${header}" is empty.`),
   tableNonFinite: (text: string, header: string) =>
     msg('table.non-finite', 'error', `"${text}" in column "${header}" is not a finite number; remove the row or write the value.`),
+  tableTemperatureNotPositive: (text: string, header: string, rows: number) =>
+    msg(
+      'table.temperature-not-positive',
+      'error',
+      `"${text}" in column "${header}" is at or below absolute zero (0 K)${rows === 2 ? ', and so is 1 more row' : rows > 2 ? `, and so are ${rows - 1} more rows` : ''}; ${rows > 1 ? 'these rows are' : 'this row is'} left out. Check the values and the unit.`,
+    ),
+  tableTooFewRows: (kind: string, rows: number, needed: number, why: string) =>
+    msg('table.too-few-rows', 'error', `The ${kind} table has ${rows} row${rows === 1 ? '' : 's'}; at least ${needed} are needed ${why}. Add rows.`),
   tableRagged: (found: number, expected: number) =>
     msg('table.ragged-row', 'error', `This row has ${found} cells but the header has ${expected}.`),
   tableInFile: (path: string, count: number) =>
@@ -92,6 +106,7 @@ export const messages = {
   dataOutsideRoot: (path: string) =>
     msg('data.outside-root', 'error', `"${path}" leads outside the notebook folder. Keep data files inside it.`),
   dataMissing: (path: string) => msg('data.missing-file', 'error', `The data file "${path}" does not exist.`),
+  dataIsFolder: (path: string) => msg('data.unreadable', 'error', `"${path}" names a folder, not a data file. Name the CSV or TSV file inside it.`),
   dataTooLarge: (path: string, bytes: number, limit: number) =>
     msg('data.too-large', 'error', `The data file "${path}" is ${fmt(bytes / 1e6, 3)} MB, more than the ${fmt(limit / 1e6, 3)} MB Vitrine reads. Split or thin the file.`),
   dataUnreadable: (path: string, detail: string) => msg('data.unreadable', 'error', `The data file "${path}" cannot be read: ${detail}.`),
@@ -181,6 +196,12 @@ export const messages = {
   relaxTgExtrapolated: (maxTau: number) =>
     msg('relaxation.tg-extrapolated', 'warning', `The longest τ is ${fmt(maxTau, 3)} s (below 1 s): Tg (τ = 100 s) is extrapolated by more than two decades.`),
   relaxNoFit: () => msg('relaxation.no-fit', 'error', 'The VFT fit did not converge on these data.'),
+  relaxFewTemperatures: (n: number) =>
+    msg('relaxation.vft-invalid', 'error', `The data hold ${n} distinct temperature${n === 1 ? '' : 's'}; a VFT fit needs at least 3, so no VFT parameters are reported. Measure at more temperatures.`),
+  relaxVftBNotPositive: (b: number) =>
+    msg('relaxation.vft-invalid', 'error', `The VFT fit is not reported: it gives B = ${fmt(b)} K, but B must be positive (τ falls as the temperature rises). Check the data for a wrong row or unit.`),
+  relaxVftT0AboveData: (t0: number, tmin: number) =>
+    msg('relaxation.vft-invalid', 'error', `The VFT fit is not reported: it gives T0 = ${fmt(t0)} K, not below the lowest measured temperature (${fmt(tmin)} K), where τ would diverge. Check the data for a wrong row or unit.`),
 
   // Standard Tg of a material
   fewRates: (n: number) => msg('material.few-rates', 'warning', `Tg at 10 K/min comes from only ${n} cooling rate${n === 1 ? '' : 's'} (fewer than 3); the rate dependence is poorly known.`),
@@ -224,6 +245,8 @@ export const messages = {
     msg('dsc.tf-below-window', 'error', `The fictive temperature (${fmt(tf)} K) falls below the start of the glass window (${fmt(t1)} K): extend windows.glass to lower temperatures.`),
   dscReferenceMismatch: (what: string) =>
     msg('dsc.reference-mismatch', 'error', `This scan and its reference differ in ${what}; the enthalpy gap needs the same heating rate and sample mass.`),
+  dscReferenceSelf: (id: string) =>
+    msg('dsc.reference-self', 'error', `"reference: ${id}" names this scan itself; the enthalpy gap needs the liquid-cooled reference scan, a different dsc block.`),
   dscReferenceNoData: (id: string) => msg('dsc.reference-no-data', 'warning', `The reference scan "${id}" has no usable heat capacity data.`),
   dscPeaks: (kind: string) => msg('dsc.peaks', 'warning', `An ${kind} peak appears in the liquid region (crystallisation or melting?): the liquid baseline may be wrong.`),
   dscCpBelowReference: () =>
@@ -234,6 +257,8 @@ export const messages = {
     msg('aging.extrapolated', 'info', 'The equivalent aging time is an extrapolation far below Tg; estimates from different methods disagree, so it is given as a bracket.'),
 
   // Plausibility against published ranges (warnings, never fit targets)
+  resultNotFinite: (name: string, value: number) =>
+    msg('result.not-finite', 'warning', `${name} is not reported: it came out as ${fmt(value)}, not a finite number (the inputs are too large, too small or out of the method's domain). Check the values and their units.`),
   implausible: (name: string, value: string, range: string, source: string) =>
     msg('result.implausible', 'warning', `${name} = ${value} is outside the usual ${range} (${source}). Check the data and the windows.`),
 
@@ -243,6 +268,8 @@ export const messages = {
 
   // Host
   fileUnreadable: (detail: string) => msg('file.unreadable', 'error', `The notebook file cannot be read: ${detail}.`),
+  fileTooLarge: (bytes: number, limit: number) =>
+    msg('file.too-large', 'error', `The notebook file is ${fmt(bytes / 1e6, 3)} MB, more than the ${fmt(limit / 1048576, 3)} MiB Vitrine reads; it was not read. Split it into several files.`),
   internalError: (detail: string) => msg('internal.error', 'error', `Vitrine failed on this block (${detail}). The rest of the notebook was still analysed; please report this.`),
 };
 

@@ -7,7 +7,8 @@
  * 'silent'`), and what it would warn about becomes a problem here. Empty text is an empty map.
  * YAML errors become diagnostics; whatever could still be read is kept. A key that is a list, a
  * map or an alias (`[a, b]: 1`, `? {a: 1}`) is a problem at the key; the data keep it as the
- * library stringifies it.
+ * library stringifies it. Metadata nested deeper than MAX_METADATA_DEPTH maps and lists is not
+ * read at all (`tooDeep`): nothing here or in the library may recurse without bound.
  */
 import { isMap, isScalar, isSeq, parseDocument, type Node as YamlNode } from 'yaml';
 import type { Span } from '../text/positions.js';
@@ -31,6 +32,30 @@ export interface Metadata {
   readonly problems: readonly YamlProblem[];
   /** The metadata is not a map at all (a list, a scalar). */
   readonly notAMap: boolean;
+  /** Nested deeper than this many levels: none of it was read. */
+  readonly tooDeep?: number;
+}
+
+/** Levels of maps and lists that metadata may nest (real blocks use three). */
+export const MAX_METADATA_DEPTH = 64;
+
+/** Whether a YAML tree nests deeper than `limit` maps and lists, found without recursion. */
+function nestsDeeperThan(root: YamlNode, limit: number): boolean {
+  const stack: Array<{ node: unknown; depth: number }> = [{ node: root, depth: 1 }];
+  while (stack.length > 0) {
+    const { node, depth } = stack.pop()!;
+    if (isMap(node)) {
+      if (depth > limit) return true;
+      for (const pair of node.items) {
+        stack.push({ node: pair.key, depth: depth + 1 });
+        stack.push({ node: pair.value, depth: depth + 1 });
+      }
+    } else if (isSeq(node)) {
+      if (depth > limit) return true;
+      for (const item of node.items) stack.push({ node: item, depth: depth + 1 });
+    }
+  }
+  return false;
 }
 
 function spanOf(node: YamlNode | null | undefined, fallback: Span): Span {
@@ -59,6 +84,7 @@ export function parseMetadata(text: string): Metadata {
   if (!isMap(contents)) {
     return { data: {}, spans, problems, notAMap: true };
   }
+  if (nestsDeeperThan(contents, MAX_METADATA_DEPTH)) return { data: {}, spans, problems: [], notAMap: false, tooDeep: MAX_METADATA_DEPTH };
   const whole = { start: 0, end: text.length };
   const walk = (node: YamlNode, pointer: string): void => {
     if (isMap(node)) {

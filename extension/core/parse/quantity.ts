@@ -3,7 +3,8 @@
  * `+/-`, and a unit (`281 K`, `8 °C`, `0.2 nm/s`, `1e-8 Torr`, `315 ± 1 K`). Values are returned
  * in the canonical unit of their dimension (units.ts).
  *
- * Policy: never throws; returns a reason when the text is not a quantity of the dimension.
+ * Policy: never throws; returns a reason when the text is not a quantity of the dimension, or
+ * when its value (or uncertainty) is not finite, as written or once converted.
  */
 import type { Quantity } from '../model/quantity.js';
 import { CANONICAL, hasDimension, lookupUnit, toCanonical, type Dimension } from './units.js';
@@ -37,6 +38,8 @@ export function parseQuantity(input: string | number, dimension: Dimension): Qua
   if (!hasDimension(resolved, dimension)) return { ok: false, reason: 'wrong-dimension', unitText };
   const converted = toCanonical(value, resolved, dimension);
   const uncertainty = u === undefined ? undefined : Math.abs(toCanonical(u, resolved, dimension === 'temperature' ? 'temperature_interval' : dimension));
+  // A finite number can overflow on conversion (1e308 GPa in Pa).
+  if (!Number.isFinite(converted) || (uncertainty !== undefined && !Number.isFinite(uncertainty))) return { ok: false, reason: 'not-finite', unitText };
   return {
     ok: true,
     assumedUnit: false,

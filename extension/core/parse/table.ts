@@ -6,8 +6,9 @@
  *   forms `T/K` (IUPAC quantity calculus), `T (K)` or `T [K]`.
  * - The delimiter is found from the header: tab, then semicolon, then comma, else whitespace.
  * - A decimal comma (`1,25`) is read where the delimiter is not a comma.
- * - Every cell must be a finite number; a bad cell is reported on its own line and column and
- *   its row is left out, so the remaining rows can still be analysed.
+ * - Every cell must be a finite number, in its column's unit too; a bad cell is reported on its
+ *   own line and column and its row is left out, so the remaining rows can still be analysed.
+ * - A temperature is absolute: rows at or below 0 K are left out, with one error on the first.
  *
  * Columns are recognised by their symbol (`t`, `T`, `h`, `V`/`v`, `Cp`, `Phi`, `tau`) or by the
  * block's `columns:` map, and converted to the canonical unit of their role.
@@ -338,6 +339,8 @@ export function parseTable(lines: readonly string[], columnsMap: Readonly<Record
   const ncol = hcells.length;
   const rows: number[][] = [];
   const rowLines: number[] = [];
+  let cold: { line: number; start: number; end: number; text: string; header: string } | null = null;
+  let coldRows = 0;
   for (let i = firstRow; i < lines.length; i++) {
     const text = lines[i];
     const trimmed = text.trim();
@@ -370,13 +373,25 @@ export function parseTable(lines: readonly string[], columnsMap: Readonly<Record
         continue;
       }
       const f = convert[j];
-      row[j] = f ? f(v) : v;
+      const converted = f ? f(v) : v;
+      if (!Number.isFinite(converted)) {
+        report(messages.tableNonFinite(cell.text, hcells[j].text), i, cell.start, cell.end);
+        ok = false;
+        continue;
+      }
+      if (roles[j] === 'temperature' && !(converted > 0)) {
+        if (ok && coldRows++ === 0) cold = { line: i, start: cell.start, end: cell.end, text: cell.text, header: hcells[j].text };
+        ok = false;
+        continue;
+      }
+      row[j] = converted;
     }
     if (ok) {
       rows.push(row);
       rowLines.push(i);
     }
   }
+  if (cold) report(messages.tableTemperatureNotPositive(cold.text, cold.header, coldRows), cold.line, cold.start, cold.end);
   if (rows.length === 0 && problems.length === 0) report(messages.tableNoRows(), headerIndex, 0, headerText.length);
 
   const columns: TableColumn[] = hcells.map((c, j) => {

@@ -24,13 +24,23 @@ import { countDiagnostics } from '../engine/counts.js';
 import { jsonDiagnostic } from '../engine/jsonReport.js';
 import { escapeHtml } from './escape.js';
 
+/** A chart that could not be drawn, and why in a few words: its card shows this instead. */
+export interface ChartFailure {
+  readonly failed: string;
+}
+
 export interface ReportInput {
   readonly title: string;
   readonly report: NotebookReport;
-  /** SVG of each block's chart. */
-  readonly charts: ReadonlyMap<BlockReport, string>;
+  /** SVG of each block's chart, or why it could not be drawn. */
+  readonly charts: ReadonlyMap<BlockReport, string | ChartFailure>;
   readonly summary: readonly FilmSummary[];
-  readonly maps: ReadonlyArray<{ readonly name: string; readonly svg: string }>;
+  readonly maps: ReadonlyArray<{ readonly name: string; readonly svg: string } | { readonly name: string; readonly failed: string }>;
+}
+
+/** The short message that stands in for a chart that could not be drawn. */
+function chartFailed(reason: string): string {
+  return `<p class="chart-failed">This chart could not be drawn (${escapeHtml(reason)}). The figures and messages are not affected.</p>`;
 }
 
 const STYLE = `
@@ -42,6 +52,7 @@ section.block { background: var(--card); border: 1px solid var(--line); border-r
 section.block h3 { margin: 0 0 0.5rem; font-size: 1rem; font-family: "DejaVu Sans Mono", monospace; }
 .chart { max-width: 700px; margin-bottom: 0.6rem; }
 .chart svg { width: 100%; height: auto; background: #fff; border-radius: 4px; }
+.chart-failed { color: var(--muted); font-style: italic; border-left: 3px solid var(--warn); padding-left: 0.5rem; }
 table { border-collapse: collapse; font-size: 0.85rem; width: 100%; }
 th, td { border-bottom: 1px solid var(--line); padding: 0.25rem 0.4rem; text-align: left; vertical-align: top; }
 td.num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
@@ -75,7 +86,8 @@ function resultsTable(results: Readonly<Record<string, ResultValue>>): string {
   return `<table class="results"><thead><tr><th>result</th><th>value</th><th>u</th><th>unit</th><th>method</th></tr></thead><tbody>${rows}</tbody></table>`;
 }
 
-function blockHtml(block: BlockReport, lines: LineIndex, svg: string | undefined): string {
+function blockHtml(block: BlockReport, lines: LineIndex, chartImage: string | ChartFailure | undefined): string {
+  const svg = typeof chartImage === 'string' ? chartImage : undefined;
   const diags = block.diagnostics
     .map((d) => {
       const r = jsonDiagnostic(d, lines);
@@ -84,7 +96,7 @@ function blockHtml(block: BlockReport, lines: LineIndex, svg: string | undefined
     .join('');
   const line = toOneBasedPoint(lines.positionAt(block.span.start)).line;
   const title = `<h3><span class="kind">${escapeHtml(block.kind)}</span> ${escapeHtml(block.id ?? '(no id)')} <small>line ${line}</small></h3>`;
-  const chart = svg ? `<div class="chart">${svg}</div>` : '';
+  const chart = svg ? `<div class="chart">${svg}</div>` : chartImage && typeof chartImage !== 'string' ? chartFailed(chartImage.failed) : '';
   const side = `<div>${resultsTable(block.results)}${diags ? `<ul class="diagnostics">${diags}</ul>` : ''}</div>`;
   return `<section class="block${svg ? '' : ' nochart'}">${title}${chart}${side}</section>`;
 }
@@ -98,7 +110,7 @@ function summaryHtml(rows: readonly FilmSummary[]): string {
 }
 
 /** Renders one markdown file, with its data blocks replaced by their sections. */
-function fileHtml(file: NotebookReport['files'][number], charts: ReadonlyMap<BlockReport, string>): string {
+function fileHtml(file: NotebookReport['files'][number], charts: ReportInput['charts']): string {
   const nonce = hashText(file.text + file.path);
   const byStart = new Map(file.blocks.map((b) => [b.span.start, b]));
   const lines = new LineIndex(file.text);
@@ -145,7 +157,7 @@ export function buildHtmlReport(input: ReportInput): string {
       return `<h2 class="file">${escapeHtml(f.path)}</h2>${fileDiags ? `<ul class="diagnostics">${fileDiags}</ul>` : ''}<article>${fileHtml(f, input.charts)}</article>`;
     })
     .join('\n');
-  const maps = input.maps.map((m) => `<figure class="map" id="map-${escapeHtml(m.name)}">${m.svg}</figure>`).join('');
+  const maps = input.maps.map((m) => `<figure class="map" id="map-${escapeHtml(m.name)}">${'svg' in m ? m.svg : chartFailed(m.failed)}</figure>`).join('');
   const blockCount = input.report.files.reduce((n, f) => n + f.blocks.length, 0);
   const errors = countDiagnostics(input.report).error;
   return `<!doctype html>

@@ -1,10 +1,16 @@
 /** `--csv`: one row per film with units in the header, the numbers printed as in the tables. */
 import { SUMMARY_COLUMNS, csvCells, csvHeaders } from '../engine/summaryColumns.js';
 import type { FilmSummary } from '../engine/summary.js';
-import { csvField } from './escape.js';
+import { csvField, csvNumberField } from './escape.js';
 
+/**
+ * Text cells (film, material, file: whatever the notebook wrote) are guarded against formulas;
+ * the numbers Vitrine formatted stay numbers.
+ */
 export function summaryCsv(rows: readonly FilmSummary[]): string {
-  const lines = [SUMMARY_COLUMNS.flatMap(csvHeaders).map(csvField).join(',')];
-  for (const r of rows) lines.push(SUMMARY_COLUMNS.flatMap((c) => csvCells(c, r)).map(csvField).join(','));
+  const lines = [SUMMARY_COLUMNS.flatMap(csvHeaders).map((h) => csvField(h)).join(',')];
+  for (const r of rows) {
+    lines.push(SUMMARY_COLUMNS.flatMap((c) => csvCells(c, r).map((cell) => (c.type === 'text' ? csvField(cell) : csvNumberField(cell)))).join(','));
+  }
   return lines.join('\n') + '\n';
 }

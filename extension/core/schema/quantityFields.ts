@@ -1,6 +1,8 @@
 /**
  * Finds the metadata fields that hold quantities, from the `quantityOf` annotations of a block
- * kind's schema (the schema is the one source of truth for which key has which dimension).
+ * kind's schema (the schema is the one source of truth for which key has which dimension), and
+ * their `quantityExclusiveMinimum` (the value in the canonical unit must be greater: a rate, a
+ * duration, a thickness or a mass is positive). An absolute temperature is always above 0 K.
  */
 import type { Dimension } from '../parse/units.js';
 import type { JsonSchema } from './schemas.js';
@@ -11,6 +13,8 @@ export interface QuantityField {
   /** Concrete pointers are matched segment by segment. */
   readonly segments: readonly string[];
   readonly dimension: Dimension;
+  /** The quantity, in the canonical unit, must be greater than this. */
+  readonly exclusiveMinimum?: number;
 }
 
 export function quantityFields(schema: JsonSchema): QuantityField[] {
@@ -19,7 +23,8 @@ export function quantityFields(schema: JsonSchema): QuantityField[] {
     if (!node || typeof node !== 'object') return;
     const s = node as Record<string, unknown>;
     if (typeof s.quantityOf === 'string') {
-      out.push({ pattern: '/' + segments.join('/'), segments: [...segments], dimension: s.quantityOf as Dimension });
+      const field: QuantityField = { pattern: '/' + segments.join('/'), segments: [...segments], dimension: s.quantityOf as Dimension };
+      out.push(typeof s.quantityExclusiveMinimum === 'number' ? { ...field, exclusiveMinimum: s.quantityExclusiveMinimum } : field);
     }
     const props = s.properties as Record<string, unknown> | undefined;
     if (props) for (const [k, v] of Object.entries(props)) visit(v, [...segments, k]);

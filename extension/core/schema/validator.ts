@@ -29,6 +29,8 @@ function validators(): Map<BlockKind, ValidateFunction> {
   if (compiled) return compiled;
   const ajv = new Ajv2020({ allErrors: true, strict: true, allowUnionTypes: true, strictRequired: false, verbose: true });
   ajv.addKeyword({ keyword: 'quantityOf', schemaType: 'string' });
+  // Checked on the quantity once its unit is read (parseBlock.ts), not on the text.
+  ajv.addKeyword({ keyword: 'quantityExclusiveMinimum', schemaType: 'number' });
   ajv.addKeyword({ keyword: 'recommended', schemaType: 'object' });
   const map = new Map<BlockKind, ValidateFunction>();
   for (const [kind, schema] of Object.entries(SCHEMAS) as Array<[BlockKind, JsonSchema]>) {
@@ -124,7 +126,9 @@ export function validateMetadata(kind: BlockKind, data: unknown): SchemaProblem[
       case 'type': {
         const t = (e.params as { type: string | string[] }).type;
         const ts = Array.isArray(t) ? t.join(',') : t;
-        out.push({ message: messages.wrongType(key, TYPE_WORDS[ts] ?? ts), pointer, atKey: false });
+        // YAML reads 1e400 as a number, Infinity, which is not one for the schema.
+        if (typeof e.data === 'number' && !Number.isFinite(e.data)) out.push({ message: messages.quantityNotFinite(key), pointer, atKey: false });
+        else out.push({ message: messages.wrongType(key, TYPE_WORDS[ts] ?? ts), pointer, atKey: false });
         break;
       }
       case 'enum':

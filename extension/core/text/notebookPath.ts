@@ -3,7 +3,8 @@
  * file is purely lexical here; symbolic links are the host's to check.
  */
 
-export type PathResolution = { readonly ok: true; readonly path: string } | { readonly ok: false; readonly reason: 'absolute' | 'outside' | 'empty' };
+/** Why a path is refused: absolute, leading outside the root, blank, or naming a folder (`.`, `sub/..`). */
+export type PathResolution = { readonly ok: true; readonly path: string } | { readonly ok: false; readonly reason: 'absolute' | 'outside' | 'empty' | 'folder' };
 
 /** The folder part of a root-relative file path ('' for a file at the root). */
 export function dirnameOf(path: string): string {
@@ -11,7 +12,10 @@ export function dirnameOf(path: string): string {
   return i < 0 ? '' : path.slice(0, i);
 }
 
-/** Resolves `written` against the folder of `fromFile`; refuses absolute paths and escapes. */
+/**
+ * Resolves `written` against the folder of `fromFile`; refuses absolute paths and escapes. Only a
+ * whole `..` segment leads up: `..x.csv` is a file name like any other.
+ */
 export function resolveNotebookPath(fromFile: string, written: string): PathResolution {
   const w = written.trim().replace(/\\/g, '/');
   if (w.length === 0) return { ok: false, reason: 'empty' };
@@ -26,6 +30,6 @@ export function resolveNotebookPath(fromFile: string, written: string): PathReso
       parts.push(seg);
     }
   }
-  if (parts.length === 0) return { ok: false, reason: 'empty' };
+  if (parts.length === 0) return { ok: false, reason: 'folder' };
   return { ok: true, path: parts.join('/') };
 }
