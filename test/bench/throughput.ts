@@ -175,6 +175,42 @@ function plainHingeSearch(x: readonly number[], y: readonly number[]): number {
   results.server = { firstDiagnosticsMs: first, nodeStartMs: idle };
 }
 
+// Hostile input: the time for n and for 4n of the same shape (linear ≈ 4, quadratic ≈ 16).
+{
+  const { scanFencedBlocks } = await import('../../extension/core/scan/fenceScanner.js');
+  const { normaliseUnitText } = await import('../../extension/core/parse/units.js');
+  const { parseTable } = await import('../../extension/core/parse/table.js');
+  const { segmentScan } = await import('../../extension/core/analysis/segments.js');
+  const { fitThreeSegments } = await import('../../extension/core/numeric/threeSegmentFit.js');
+  const best = (run: () => unknown): number => {
+    let t = Infinity;
+    for (let r = 0; r < 3; r++) {
+      const t0 = performance.now();
+      run();
+      t = Math.min(t, performance.now() - t0);
+    }
+    return t;
+  };
+  const noisy = (n: number) => Float64Array.from({ length: n }, (_, i) => 300 + 0.1 * Math.sin(i * 12.9898));
+  const cases: Array<[string, (k: number) => () => unknown]> = [
+    ['one line of 80 000 list markers', (k) => { const t = '- '.repeat(80000 * k) + 'a\n'; return () => scanFencedBlocks(t); }],
+    ['one line of 40 000 block-quote markers', (k) => { const t = '> '.repeat(40000 * k) + 'a\n'; return () => scanFencedBlocks(t); }],
+    ['a list nested 1000 deep', (k) => { const d = 1000 * (k === 4 ? 2 : 1); const t = Array.from({ length: d }, (_, i) => '  '.repeat(i) + '* a\n').join(''); return () => scanFencedBlocks(t); }],
+    ['a unit padded with 400 000 spaces', (k) => { const t = 'K' + ' '.repeat(400000 * k) + 'x'; return () => normaliseUnitText(t); }],
+    ['a header of 1 000 000 parentheses', (k) => { const l = ['('.repeat(1000000 * k), '1']; return () => parseTable(l); }],
+    ['a 1 000 000-digit cell', (k) => { const l = ['T/K, h/nm', `300, ${'9'.repeat(1000000 * k)}`]; return () => parseTable(l); }],
+    ['segments of an 80 000-row noisy hold', (k) => { const T = noisy(80000 * k); return () => segmentScan(T, null, null); }],
+    ['three-segment fit of a 20 000-row hold', (k) => { const n = 20000 * k; const t = Float64Array.from({ length: n }, (_, i) => i); const h = noisy(n); return () => fitThreeSegments(t, h); }],
+  ];
+  const hostile: Record<string, number> = {};
+  for (const [name, make] of cases) {
+    const ratio = best(make(4)) / best(make(1));
+    hostile[name] = ratio;
+    rows.push([`hostile input, 4n against n: ${name}`, `${ratio.toFixed(1)}× (linear ≈ 4)`]);
+  }
+  results.hostile = hostile;
+}
+
 results.rows = rows;
 fs.writeFileSync(path.join(REPO, 'test', 'bench', 'results.json'), JSON.stringify(results, null, 2) + '\n');
 const width = Math.max(...rows.map((r) => r[0].length));

@@ -12,6 +12,12 @@ import { REPO } from './loadNotebook.js';
 
 export const SERVER = path.join(REPO, 'dist', 'server.cjs');
 
+// A reply still being written when a stopped server's pipe closes is of no interest.
+process.on('unhandledRejection', (e) => {
+  if ((e as { code?: string } | null)?.code === 'ERR_STREAM_DESTROYED') return;
+  throw e;
+});
+
 export interface Client {
   readonly connection: MessageConnection;
   readonly process: ChildProcess;
