@@ -98,6 +98,12 @@ function prefixOf(ctx: FileContext, block: { span: { start: number } }): string 
   return raw.slice(lineStart, start).replace(/[-*+]|\d+[.)]/g, (m) => ' '.repeat(m.length));
 }
 
+/** The 0-based line of a block's last character (a block that a container ended stops at the start of the next line). */
+function lastLineOf(ctx: FileContext, block: { span: { start: number; end: number } }): number {
+  const end = Math.max(block.span.start, block.span.end - 1);
+  return ctx.text.lines.lineAt(end + ctx.text.bom);
+}
+
 /** Offset (in the editor's text) of the start of the line after the opening fence. */
 function afterFenceLine(ctx: FileContext, start: number): number {
   const line = ctx.text.lines.lineAt(start + ctx.text.bom);
@@ -139,7 +145,7 @@ function recordEdit(ctx: FileContext, target: BlockReport): TextEdit | null {
   const prefix = prefixOf(ctx, target);
   const eol = ctx.text.eol;
   // After the block's last line: the block span ends at the end of its closing fence line.
-  const endLine = ctx.text.lines.lineAt(target.span.end + ctx.text.bom);
+  const endLine = lastLineOf(ctx, target);
   const lineEnd = ctx.text.lines.lineEnd(endLine);
   const atEnd = lineEnd === ctx.text.raw.length;
   const pos = ctx.text.lines.positionAt(lineEnd);
@@ -159,7 +165,7 @@ function refreshEdit(ctx: FileContext, record: BlockReport): TextEdit | null {
   if (!body) return null;
   const prefix = prefixOf(ctx, record);
   const first = ctx.text.lines.lineAt(record.span.start + ctx.text.bom) + 1;
-  const last = ctx.text.lines.lineAt(record.span.end + ctx.text.bom);
+  const last = lastLineOf(ctx, record);
   const closing = /^\s*(?:>\s*)*(`{3,}|~{3,})\s*$/.test(ctx.text.lineText(last));
   const endLine = closing ? last : last + 1;
   if (endLine < first) return null;

@@ -38,7 +38,7 @@ import { hover } from './hover.js';
 import { lensText } from './figures.js';
 import { definition, documentSymbols, references, rename, prepareRename, workspaceSymbols } from './navigation.js';
 import { DEFAULT_SETTINGS, readSettings } from './settings.js';
-import { Workspace, pathToUri, uriToPath, type Place } from './workspace.js';
+import { Workspace, canonicalUri, pathToUri, uriToPath, type Place } from './workspace.js';
 
 const DEBOUNCE_MS = 250;
 /** Handlers slower than this are logged, to find what makes typing slow. */
@@ -55,8 +55,8 @@ export class VitrineServer {
   private capabilities: ClientCapabilities = {};
   private readonly documents = new Map<string, TextDocument>();
   private readonly timers = new Map<string, ReturnType<typeof setTimeout>>();
-  /** Each change bumps the generation; a background pass of an older generation stops. */
-  private generation = 0;
+  /** Each change bumps its folder's generation; a background pass over a folder stops when it moves on. */
+  private readonly generations = new Map<string, number>();
   private readonly published = new Map<string, PublishedState>();
   /** Save-phase findings (`code|message`) seen at the last save of each open document. */
   private readonly savedFindings = new Map<string, Set<string>>();
@@ -130,6 +130,8 @@ export class VitrineServer {
     }));
     c.onDidCloseTextDocument(this.guard('didClose', undefined, (p) => {
       this.documents.delete(p.textDocument.uri);
+      const prefix = `${canonicalUri(p.textDocument.uri)}#`;
+      for (const key of [...this.lastGood.keys()]) if (key.startsWith(prefix)) this.lastGood.delete(key);
       this.savedFindings.delete(p.textDocument.uri);
       this.dirty.delete(p.textDocument.uri);
       this.pending.delete(p.textDocument.uri);
@@ -140,7 +142,7 @@ export class VitrineServer {
       const touched: Place[] = [];
       for (const change of p.changes) touched.push(...this.workspace.diskChanged(change.uri, change.type === FileChangeType.Deleted));
       const uris = new Set(touched.map((t) => this.workspace.uriOf(t.folder, t.rel)));
-      for (const uri of uris) this.schedule(uri, DEBOUNCE_MS);
+      for (const uri of uris) this.schedule(this.openUriOf(uri), DEBOUNCE_MS);
     }));
     c.onCodeLens(this.guard('codeLens', [] as CodeLens[], (p, token: CancellationToken) => this.codeLenses(p.textDocument.uri, token)));
     c.onHover(this.guard('hover', null, (p) => hover(this.workspace, p.textDocument.uri, p.position)));
@@ -260,9 +262,18 @@ export class VitrineServer {
 
   // ---- diagnostics --------------------------------------------------------------------------
 
+  private generationOf(root: string): number {
+    return this.generations.get(root) ?? 0;
+  }
+
+  private bump(uri: string): void {
+    const root = this.workspace.placeOf(uri)?.folder.root;
+    if (root !== undefined) this.generations.set(root, this.generationOf(root) + 1);
+  }
+
   private schedule(uri: string, delay: number): void {
     clearTimeout(this.timers.get(uri));
-    this.generation++;
+    this.bump(uri);
     this.timers.set(
       uri,
       setTimeout(() => {
@@ -274,41 +285,40 @@ export class VitrineServer {
 
   private scheduleAll(): void {
     clearTimeout(this.timers.get('*'));
-    const generation = ++this.generation;
     this.timers.set(
       '*',
       setTimeout(() => {
         this.timers.delete('*');
-        void this.publishFolder(null, generation);
+        void this.publishFolder(null);
       }, 0),
     );
   }
 
   private runDiagnostics(uri: string): void {
     try {
-      const generation = this.generation;
       this.publish(uri);
       this.pending.delete(uri);
       void this.connection.sendNotification('vitrine/resultsChanged', { uris: [uri] } satisfies ResultsChangedParams);
       if (this.capabilities.workspace?.codeLens?.refreshSupport) void this.connection.sendRequest('workspace/codeLens/refresh');
       // The rest of the notebook may depend on this file (references, duplicate ids, Tg of films).
-      void this.publishFolder(uri, generation);
+      void this.publishFolder(uri);
     } catch (e) {
       this.log(`diagnostics failed for ${uri}: ${e instanceof Error ? (e.stack ?? e.message) : String(e)}`);
     }
   }
 
   /** Publishes every file of the folder of `uri` (every folder when null), yielding between files. */
-  private async publishFolder(uri: string | null, generation: number): Promise<void> {
+  private async publishFolder(uri: string | null): Promise<void> {
     const place = uri ? this.workspace.placeOf(uri) : null;
     const folders = place ? [place.folder] : this.workspace.allFolders();
     for (const folder of folders) {
+      const generation = this.generationOf(folder.root);
       // One analysis of the whole folder (cached blocks cost nothing), then one file at a time.
       const report = folder.engine.analyze();
       for (const file of report.files) {
-        if (generation !== this.generation) return;
-        const other = this.workspace.uriOf(folder, file.path);
-        if (other === uri) continue;
+        if (generation !== this.generationOf(folder.root)) break;
+        const other = this.openUriOf(this.workspace.uriOf(folder, file.path));
+        if (uri !== null && canonicalUri(other) === canonicalUri(uri)) continue;
         this.publish(other, file);
         await new Promise((r) => setImmediate(r));
       }
@@ -336,6 +346,13 @@ export class VitrineServer {
     if (this.published.get(uri)?.key === key) return;
     this.published.set(uri, { key });
     void this.connection.sendDiagnostics({ uri, ...(version !== null ? { version } : {}), diagnostics });
+  }
+
+  /** The URI string the editor uses for a file it has open (diagnostics must carry that one). */
+  private openUriOf(uri: string): string {
+    const key = canonicalUri(uri);
+    for (const open of this.documents.keys()) if (canonicalUri(open) === key) return open;
+    return uri;
   }
 
   private relatedUri(uri: string, rel: string): string {

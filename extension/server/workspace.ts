@@ -5,7 +5,7 @@
  */
 import * as fs from 'node:fs';
 import * as path from 'node:path';
-import { fileURLToPath, pathToFileURL } from 'node:url';
+import { URI } from 'vscode-uri';
 import { MAX_DATA_FILE_BYTES, Notebook, type NotebookOptions } from '../core/index.js';
 import { markdownFiles } from '../node/discovery.js';
 import { FileHost } from '../node/fileHost.js';
@@ -36,14 +36,21 @@ const MARKDOWN = /\.(md|markdown)$/i;
 export function uriToPath(uri: string): string | null {
   if (!uri.startsWith('file:')) return null;
   try {
-    return fileURLToPath(uri);
+    return URI.parse(uri).fsPath;
   } catch {
     return null;
   }
 }
 
+/** A file URI written as VS Code writes it (every reserved character escaped), so that strings compare. */
 export function pathToUri(p: string): string {
-  return pathToFileURL(p).href;
+  return URI.file(p).toString();
+}
+
+/** The canonical spelling of a document URI. */
+export function canonicalUri(uri: string): string {
+  const p = uriToPath(uri);
+  return p === null ? uri : pathToUri(p);
 }
 
 export class Workspace {
@@ -80,6 +87,11 @@ export class Workspace {
       progress?.(i, files.length);
       this.loadFromDisk(folder, rel);
     });
+    // Documents open in the editor belong to the new folder now, with the editor's text.
+    for (const [uri, doc] of this.open) {
+      const place = this.placeOf(uri);
+      if (place?.folder === folder) folder.engine.setFile(place.rel, doc.text.raw);
+    }
     return folder;
   }
 
@@ -112,15 +124,16 @@ export class Workspace {
 
   /** The text of a notebook file as the editor or the disk has it. */
   textOf(uri: string): DocumentText | undefined {
-    return this.open.get(uri)?.text ?? this.disk.get(uri);
+    const key = canonicalUri(uri);
+    return this.open.get(key)?.text ?? this.disk.get(key);
   }
 
   versionOf(uri: string): number | null {
-    return this.open.get(uri)?.version ?? null;
+    return this.open.get(canonicalUri(uri))?.version ?? null;
   }
 
   isOpen(uri: string): boolean {
-    return this.open.has(uri);
+    return this.open.has(canonicalUri(uri));
   }
 
   openUris(): string[] {
@@ -128,7 +141,7 @@ export class Workspace {
   }
 
   didOpen(uri: string, text: string, version: number, positions?: PositionSource): Place | null {
-    this.open.set(uri, { text: new DocumentText(text, positions), version });
+    this.open.set(canonicalUri(uri), { text: new DocumentText(text, positions), version });
     const place = this.placeOf(uri);
     place?.folder.engine.setFile(place.rel, text);
     return place;
@@ -140,7 +153,7 @@ export class Workspace {
 
   /** A closed document falls back to the disk's text (or leaves the notebook if it is gone). */
   didClose(uri: string): Place | null {
-    this.open.delete(uri);
+    this.open.delete(canonicalUri(uri));
     const place = this.placeOf(uri);
     if (place) this.loadFromDisk(place.folder, place.rel);
     return place;
@@ -150,7 +163,8 @@ export class Workspace {
    * A file changed on disk. Markdown files are notebook files (unless open: the editor's text
    * wins); anything else may be a data file. Returns the notebook files whose results may change.
    */
-  diskChanged(uri: string, deleted: boolean): Place[] {
+  diskChanged(rawUri: string, deleted: boolean): Place[] {
+    const uri = canonicalUri(rawUri);
     const p = uriToPath(uri);
     if (p === null) return [];
     const touched: Place[] = [];
@@ -159,6 +173,8 @@ export class Workspace {
       if (rel === '' || rel.startsWith('..') || path.isAbsolute(rel)) continue;
       if (MARKDOWN.test(rel)) {
         if (folder.lone && rel.includes('/')) continue;
+        // Discovery never reads tool folders or hidden files; neither do file events.
+        if (rel.split('/').some((seg) => seg.startsWith('.') || seg === 'node_modules')) continue;
         if (this.open.has(uri)) continue;
         if (deleted) {
           folder.engine.deleteFile(rel);

@@ -100,6 +100,8 @@ export class ChartPanel implements vscode.Disposable {
   }
 
   private adopt(panel: vscode.WebviewPanel): void {
+    // One panel at a time: a panel restored while another is open replaces it.
+    if (this.panel && this.panel !== panel) this.panel.dispose();
     this.panel = panel;
     this.ready = false;
     this.queue = [];
@@ -107,7 +109,12 @@ export class ChartPanel implements vscode.Disposable {
     panel.webview.html = webviewHtml(panel.webview, this.context.extensionUri, panel.title);
     this.disposables.push(
       panel.webview.onDidReceiveMessage((m: FromWebview) => void this.receive(m)),
+      panel.onDidChangeViewState((e) => {
+        // A hidden webview is unloaded; it says 'ready' again when shown, and is sent its view then.
+        if (!e.webviewPanel.visible && e.webviewPanel === this.panel) this.ready = false;
+      }),
       panel.onDidDispose(() => {
+        if (panel !== this.panel) return;
         this.panel = undefined;
         this.ready = false;
         this.queue = [];
@@ -136,16 +143,24 @@ export class ChartPanel implements vscode.Disposable {
         void this.refresh();
         return;
       case 'reveal': {
-        const uri = vscode.Uri.parse(message.uri);
-        const line = Math.max(0, Math.floor(message.line));
-        const editor = await vscode.window.showTextDocument(uri, { viewColumn: vscode.ViewColumn.One, preserveFocus: false });
-        const position = new vscode.Position(line, 0);
-        editor.selection = new vscode.Selection(position, position);
-        editor.revealRange(new vscode.Range(position, position), vscode.TextEditorRevealType.InCenterIfOutsideViewport);
+        try {
+          const uri = vscode.Uri.parse(message.uri);
+          const line = Number.isFinite(message.line) ? Math.max(0, Math.floor(message.line)) : 0;
+          const editor = await vscode.window.showTextDocument(uri, { viewColumn: vscode.ViewColumn.One, preserveFocus: false });
+          const position = editor.document.validatePosition(new vscode.Position(line, 0));
+          editor.selection = new vscode.Selection(position, position);
+          editor.revealRange(new vscode.Range(position, position), vscode.TextEditorRevealType.InCenterIfOutsideViewport);
+        } catch (e) {
+          this.log.warn(`chart preview: cannot show the block: ${e instanceof Error ? e.message : String(e)}`);
+        }
         return;
       }
       case 'export':
-        await this.export(message.name, message.format, message.data);
+        try {
+          await this.export(message.name, message.format, message.data);
+        } catch (e) {
+          void vscode.window.showErrorMessage(`Vitrine: the chart could not be saved: ${e instanceof Error ? e.message : String(e)}`);
+        }
         return;
       case 'error':
         this.log.warn(`chart preview: ${message.message}`);

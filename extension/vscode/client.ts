@@ -8,14 +8,13 @@ export function createClient(context: vscode.ExtensionContext): LanguageClient {
     run: { module, transport: TransportKind.ipc },
     debug: { module, transport: TransportKind.ipc, options: { execArgv: ['--nolazy', '--inspect=6019'] } },
   };
-  const watcher = vscode.workspace.createFileSystemWatcher('**/*');
-  context.subscriptions.push(watcher);
   const clientOptions: LanguageClientOptions = {
     documentSelector: [
       { scheme: 'file', language: 'markdown' },
       { scheme: 'untitled', language: 'markdown' },
     ],
-    synchronize: { configurationSection: 'vitrine', fileEvents: watcher },
+    // The server registers its own file watcher (notebooks and the data files they read).
+    synchronize: { configurationSection: 'vitrine' },
     initializationOptions: vscode.workspace.getConfiguration('vitrine'),
     outputChannelName: 'Vitrine',
   };

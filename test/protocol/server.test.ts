@@ -2,6 +2,7 @@ import assert from 'node:assert/strict';
 import * as fs from 'node:fs';
 import * as path from 'node:path';
 import type { CodeAction, CodeLens, CompletionItem, Diagnostic, DocumentSymbol, Hover, Location, TextEdit, WorkspaceEdit } from 'vscode-languageserver-protocol';
+import { URI } from 'vscode-uri';
 import { InMemoryHost, LineIndex, Notebook } from '../../extension/core/index.js';
 import { REPO } from '../support/loadNotebook.js';
 import { startServer, tempNotebook, uriOf, type Client } from '../support/lspClient.js';
@@ -258,6 +259,25 @@ describe('language server over stdio', function () {
     const summary: { columns: string[]; rows: unknown[]; maps: unknown[] } = await client.connection.sendRequest('vitrine/summary', { theme: 'light' });
     assert.ok(summary.rows.length >= 3);
     assert.ok(summary.maps.length >= 1);
+  });
+
+  it('accepts file URIs escaped as VS Code escapes them, in a folder with reserved characters', async () => {
+    root = tempNotebook({});
+    const dir = path.join(root, 'Lab (copy) #1');
+    fs.mkdirSync(dir);
+    fs.writeFileSync(path.join(dir, 'm.md'), MATERIAL);
+    fs.writeFileSync(path.join(dir, 'd.md'), DEPOSITION);
+    client = await startServer(dir);
+    const uri = URI.file(path.join(dir, 'd.md')).toString();
+    assert.match(uri, /%28copy%29/);
+    const broken = DEPOSITION.replace('rate: 0.2 nm/s\n', '');
+    client.open(uri, broken);
+    const diags = await client.waitForDiagnostics(uri, (d) => d.some((x) => x.code === 'meta.missing-required'));
+    assert.equal(diags.filter((d) => d.code === 'meta.missing-required').length, 1);
+    assert.equal((await lenses(client, uri)).length, 1);
+    // The editor's text wins: nothing republishes this file from the disk's complete text.
+    await new Promise((r) => setTimeout(r, 600));
+    assert.ok(client.diagnostics.get(uri)!.diagnostics.some((x) => x.code === 'meta.missing-required'));
   });
 
   it('answers malformed requests with JSON-RPC errors and keeps running', async () => {

@@ -13,8 +13,9 @@ import { REPO } from './loadNotebook.js';
 export const SERVER = path.join(REPO, 'dist', 'server.cjs');
 
 // A reply still being written when a stopped server's pipe closes is of no interest.
+const CLOSED_PIPE = new Set(['ERR_STREAM_DESTROYED', 'EPIPE']);
 process.on('unhandledRejection', (e) => {
-  if ((e as { code?: string } | null)?.code === 'ERR_STREAM_DESTROYED') return;
+  if (CLOSED_PIPE.has((e as { code?: string } | null)?.code ?? '')) return;
   throw e;
 });
 
@@ -46,6 +47,7 @@ export async function startServer(root: string, settings: unknown = {}, capabili
   const diagnostics = new Map<string, PublishDiagnosticsParams>();
   const log: string[] = [];
   const waiters: Array<() => void> = [];
+  proc.stdout!.on('error', () => undefined);
   connection.onNotification('textDocument/publishDiagnostics', (p: PublishDiagnosticsParams) => {
     diagnostics.set(p.uri, p);
     for (const w of waiters.splice(0)) w();

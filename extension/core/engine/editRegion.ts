@@ -5,7 +5,8 @@
  * A change is *plain* when every line it touches, before and after, is one that cannot open,
  * close or end a block in CommonMark: no backtick or tilde run of three (a fence); no `<` or `>`
  * anywhere (HTML blocks start and end on them, and may swallow a fence); no block quote, list
- * marker, heading marker or thematic break at the start; no indentation of four spaces or a tab
+ * marker, heading marker, setext underline or thematic break at the start; no indentation of four
+ * spaces or a tab
  * (an indented code block); and no blank line (blank lines end HTML blocks and lists). Such lines
  * only ever form paragraph text.
  */
@@ -56,7 +57,7 @@ export function lineBounds(text: string, from: number, to: number): { start: num
   return { start, end };
 }
 
-const BOUNDARY_LINE = /^(?: {0,3}(?:#|[-*+](?:[ \t]|$)|\d{1,9}[.)](?:[ \t]|$)|(?:[-*_=][ \t]*){3,}$)| {4}|\t|[ \t]*$)/;
+const BOUNDARY_LINE = /^(?: {0,3}(?:#|[-*+](?:[ \t]|$)|\d{1,9}[.)](?:[ \t]|$)|(?:[-*_=][ \t]*){3,}$|(?:=+|-+)[ \t]*$)| {4}| *\t|[ \t]*$)/;
 const BOUNDARY_TEXT = /```|~~~|[<>]/;
 
 /** True when the lines [start, end) of a text can change without changing any block boundary. */
