@@ -315,13 +315,17 @@ export class VitrineServer {
       const generation = this.generationOf(folder.root);
       // One analysis of the whole folder (cached blocks cost nothing), then one file at a time.
       const report = folder.engine.analyze();
+      const touched: string[] = [];
       for (const file of report.files) {
         if (generation !== this.generationOf(folder.root)) break;
         const other = this.openUriOf(this.workspace.uriOf(folder, file.path));
         if (uri !== null && canonicalUri(other) === canonicalUri(uri)) continue;
         this.publish(other, file);
+        touched.push(other);
         await new Promise((r) => setImmediate(r));
       }
+      // Figures of other files may follow from the change (a material's Tg, a film's substrate temperature).
+      if (uri !== null && touched.length > 0) void this.connection.sendNotification('vitrine/resultsChanged', { uris: touched } satisfies ResultsChangedParams);
     }
   }
 
