@@ -3,8 +3,8 @@
  * and split into lines once per content, and parsed once per column map. A reverse index says
  * which notebook files read each data file, so that a change re-parses only those.
  *
- * Memory: a pulled file is forgotten when no notebook file reads it any more; a pushed file is
- * kept until the host deletes it.
+ * Memory: a file is forgotten when no notebook file reads it any more (a pushed one too: a host
+ * that watches files pushes only what blocks read, and is asked again when a block reads it).
  */
 import type { DataTableRead, DataTableSource } from '../block/parseBlock.js';
 import { parseTable, type Table } from '../parse/table.js';
@@ -78,8 +78,8 @@ export class DataFiles implements DataTableSource {
       if (m.size === 0) {
         this.readers.delete(p);
         const e = this.entries.get(p);
-        if (e && !e.pushed) this.entries.delete(p);
-        else if (e) e.tables.clear();
+        // Unread, a file is forgotten; the host pushes it again, or is asked, when a block reads it.
+        if (e) this.entries.delete(p);
       }
     }
   }
