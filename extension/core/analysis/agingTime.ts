@@ -1,6 +1,6 @@
 /**
- * Equivalent aging time of a glass with fictive temperature Tf (METHODS.md §5, "Equivalent aging
- * time"): how long the equilibrium liquid would take to relax at Tf. Estimates disagree by orders
+ * Equivalent aging time of a glass with fictive temperature Tf: how long the equilibrium liquid
+ * would take to relax at Tf. Estimates disagree by orders
  * of magnitude (Berthier & Ediger, J. Chem. Phys. 152, 044501 (2020)), so the result is a bracket
  * of two named methods, always flagged as an extrapolation:
  * 1. VFT extrapolation: τα(Tf) = 10^(A + B/(Tf − T0)) s;

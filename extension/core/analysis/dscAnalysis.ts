@@ -1,5 +1,5 @@
 /**
- * Calorimetry results (METHODS.md §6; ASTM E1356 and ISO 11357-2 for the construction names).
+ * Calorimetry results (ASTM E1356 and ISO 11357-2 for the construction names).
  *
  * - Heat capacity from the data, or from heat flow as Cp = Φ/(m·q).
  * - Glass and liquid baselines: straight lines over `windows.glass` and `windows.liquid`

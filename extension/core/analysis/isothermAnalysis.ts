@@ -1,5 +1,5 @@
 /**
- * Isotherm results (METHODS.md §4): the continuous plateau–transformation–plateau fit
+ * Isotherm results: the continuous plateau–transformation–plateau fit
  * (threeSegmentFit.ts) gives the start t₁ and end t₂ of the transformation.
  * - `onset_time` = t₁ − t₀ and `transformation_time` = t₂ − t₀, with t₀ when the sample came within
  *   0.5 K of the hold temperature (the first time without a temperature column);
@@ -122,7 +122,7 @@ export function analyzeIsotherm(block: ParsedBlock, ctx: AnalysisContext): Analy
   return { results, diagnostics, figure };
 }
 
-/** Evaporation after the plateau, abrupt drops and a non-linear transformation (METHODS.md §4 flags). */
+/** Evaporation after the plateau, abrupt drops and a non-linear transformation. */
 function isothermChecks(block: ParsedBlock, t: Float64Array, h: Float64Array, fit: ThreeSegmentFit, lowerBound: boolean, diagnostics: Diagnostic[]): void {
   const n = t.length;
   const model = (ti: number): number => threeSegmentValue(fit, ti);

@@ -1,5 +1,5 @@
 /**
- * Plausibility of computed figures against published ranges (METHODS.md §§2–5, CHECKS.md §3).
+ * Plausibility of computed figures against published ranges.
  * These are warnings for the user to look again, never targets of a fit.
  */
 import { at, type Diagnostic } from '../model/diagnostic.js';

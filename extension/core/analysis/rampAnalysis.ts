@@ -1,5 +1,5 @@
 /**
- * Ramp analysis: thickness (or specific volume) against temperature (METHODS.md §§0–3).
+ * Ramp analysis: thickness (or specific volume) against temperature.
  *
  * 1. The scan is split into heating, cooling and isothermal segments (segments.ts).
  * 2. Tg from the longest cooling segment: the continuous two-line hinge fit with an optimised
@@ -15,7 +15,7 @@
  *    - `tfictive`: the VD line meets the SCL line;
  *    - `density_gain`: 100·(ĥ_LC/ĥ_VD − 1) at the reference temperature (default the film's
  *      substrate temperature), since ρ ∝ 1/h at fixed area and mass.
- *    Uncertainties of intersections by the delta method (METHODS.md §0.3).
+ *    Uncertainties of intersections by the delta method.
  *
  * Policy: any missing piece gives a diagnostic and no result for that figure; the other figures
  * are still computed. "No transition detected" is reported, not thrown.
@@ -81,7 +81,7 @@ const VARIANTS: readonly RampChoices[] = [{ gap: 3 }, { gap: 8 }, { vdTrim: 5 },
 
 /**
  * The ramp analysis, with the sensitivity of Tg, Tonset, Tf and the density gain to the choices
- * of windows (METHODS.md §1: move window edges by 5 K and report the spread): the largest change
+ * of windows (window edges moved by 5 K, the spread reported): the largest change
  * over the variants is named in the method, beside the statistical uncertainty.
  */
 export function analyzeRamp(block: ParsedBlock, ctx: AnalysisContext): Analysis {
@@ -256,7 +256,7 @@ function rampFigure(curve: Curve, lines: RampLines, results: Record<string, Resu
   return { xTitle: 'T / K', yTitle, series, markers };
 }
 
-/** Evaporation during holds and abrupt drops (METHODS.md §1 and §3 flags). */
+/** Evaporation during holds and abrupt drops. */
 function scanChecks(block: ParsedBlock, c: Curve, time: Float64Array | null, segments: readonly Segment[], note: (m: Message, span: Span) => void): void {
   const drop = firstAbruptDrop(c.h);
   if (drop.index >= 0) note(messages.rampAbruptDrop(drop.drop), block.rowSpan(drop.index));
@@ -407,7 +407,7 @@ function firstHeating(
     if (k >= 3 && Math.abs(sum / k) > 5 * sigma && Math.abs(sum / k) > 1e-3 * Math.abs(lines.scl.c)) note(messages.rampSclShift(sum / k), rowOf(m - 1));
   }
 
-  // Deviation onset (METHODS.md §3): the first of 3 consecutive points beyond 3σ of the VD line.
+  // Deviation onset: the first of 3 consecutive points beyond 3σ of the VD line.
   {
     const sigma = Math.max(Math.sqrt(vd.sigma2), 1e-9 * Math.abs(vd.c));
     let run = 0;

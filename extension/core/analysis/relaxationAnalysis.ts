@@ -1,8 +1,8 @@
 /**
  * Relaxation results: the decadic VFT fit log10 τ = A + B/(T − T0) by variable projection
- * (vftFit.ts, METHODS.md §5) with its covariance; `tg_vft` (τ = 100 s) and `fragility` (m at Tg)
+ * (vftFit.ts) with its covariance; `tg_vft` (τ = 100 s) and `fragility` (m at Tg)
  * with delta-method uncertainties from the full covariance (T0 is strongly correlated with A and
- * B). Flags from METHODS.md §5: fewer than 4 points, τ ≤ 0, fewer than 3 decades, T0 within 5 K
+ * B). Flags: fewer than 4 points, τ ≤ 0, fewer than 3 decades, T0 within 5 K
  * of T_min or ≤ 0, longest τ below 1 s.
  *
  * Policy: rows with τ ≤ 0 are reported and left out; the rest are fitted. A fit is refused, with

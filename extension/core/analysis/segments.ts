@@ -1,5 +1,5 @@
 /**
- * Splits a scan into heating, cooling and isothermal segments (METHODS.md §0.1).
+ * Splits a scan into heating, cooling and isothermal segments.
  *
  * With a time column, dT/dt is the slope of a local linear regression over 7 points; a point is
  * heating when dT/dt > ε, cooling when dT/dt < −ε, isothermal otherwise, with ε = 0.1 × the

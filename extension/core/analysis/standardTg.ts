@@ -1,6 +1,6 @@
 /**
  * `standard_tg`: Tg at the reference cooling rate of 10 K/min from the cooling ramps of a
- * material's films (METHODS.md §1, "Tg at 10 K/min from a series of rates").
+ * material's films ("Tg at 10 K/min from a series of rates").
  *
  * - Several rates: model M1, Tg = a + b·log10 q, by least squares; the prediction at
  *   q_ref = 10 K/min has standard uncertainty s·√(1/n + (x0 − x̄)²/Sxx) and the interval

@@ -8,7 +8,7 @@
  * evaluated directly. Every evaluation is O(1) from prefix sums of centred data, so the search is
  * O(n) after an O(n log n) sort. The 95 % interval is the profile-likelihood set
  * SSE(T_b) ≤ SSE_min·(1 + F₀.₉₅(1, n − 4)/(n − 4)) (Lerman, Appl. Stat. 29, 77 (1980);
- * METHODS.md §1, Method A). Whether there is a transition at all is an F-test against one line.
+ * the two-line method). Whether there is a transition at all is an F-test against one line.
  *
  * Policy: fewer than 2·nMin points, or a span too short for two sides of `minSpan`, gives a
  * `reason` instead of a fit. Never throws.

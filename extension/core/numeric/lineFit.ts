@@ -1,5 +1,5 @@
 /**
- * Straight-line least squares with the regressor centred on its mean (METHODS.md §0.2):
+ * Straight-line least squares with the regressor centred on its mean:
  * y = c + s·(x − xc), which keeps c and s uncorrelated. Two passes (means, then centred sums),
  * so large offsets such as temperatures near 300 K or thicknesses near 400 nm lose no digits.
  * Checked against NIST StRD Norris in the tests.
@@ -88,7 +88,7 @@ export function interceptAtZero(f: LineFit): { value: number; se: number } {
 
 export interface Intersection {
   readonly x: number;
-  /** First-order standard uncertainty (delta method), METHODS.md §0.3. */
+  /** First-order standard uncertainty (delta method). */
   readonly se: number;
   /** Slopes differ significantly (two-sided t-test at 5 %). */
   readonly slopesDiffer: boolean;
@@ -96,7 +96,7 @@ export interface Intersection {
 
 /**
  * Intersection of two independently fitted lines with its delta-method uncertainty:
- * σ(x×) ≈ √(Var ĥ₁(x×) + Var ĥ₂(x×)) / |s₂ − s₁| (METHODS.md §0.3).
+ * σ(x×) ≈ √(Var ĥ₁(x×) + Var ĥ₂(x×)) / |s₂ − s₁|.
  */
 export function intersect(a: LineFit, b: LineFit, tCritical: (df: number) => number): Intersection | null {
   const ds = b.slope - a.slope;

@@ -1,6 +1,6 @@
 /**
  * Continuous three-segment piecewise-linear fit (plateau, linear transformation, plateau),
- * METHODS.md §4: h(t) = a + b₁·t + b₂·max(t − t₁, 0) + b₃·max(t − t₂, 0), t₁ < t₂.
+ * h(t) = a + b₁·t + b₂·max(t − t₁, 0) + b₃·max(t − t₂, 0), t₁ < t₂.
  *
  * Method: for fixed breakpoints the model is linear in (a, b₁, b₂, b₃), solved by Householder
  * QR; the breakpoints are found on a 2-D grid over a thinned copy of the data (at most 400

@@ -1,5 +1,5 @@
 /**
- * Decadic VFT fit log10 τ = A + B/(T − T0) by variable projection (METHODS.md §5): for a fixed
+ * Decadic VFT fit log10 τ = A + B/(T − T0) by variable projection: for a fixed
  * T0 the model is a straight line in z = 1/(T − T0), so A and B follow by linear least squares
  * and only the profile SSE(T0) is searched — on a grid of T0 from just below T_min down to 0 K
  * (log-spaced distances), then by Brent's method — with no starting values from the user.
