@@ -35,6 +35,8 @@ export function escapeHtml(text: string): string {
 export class PreviewCharts {
   private readonly cache = new Map<string, Entry>();
   private readonly inFlight = new Set<string>();
+  /** Documents whose figures changed again while a request for them was under way. */
+  private readonly again = new Set<string>();
 
   constructor(
     private readonly client: () => LanguageClient | undefined,
@@ -54,12 +56,13 @@ export class PreviewCharts {
     return md;
   }
 
-  /** Forgets the figures of these documents (all when omitted) and asks the preview to render again. */
+  /**
+   * The figures of these documents (all when omitted) are out of date: fetch them again. The
+   * preview keeps showing the old ones until the new ones arrive, so it never flickers back to
+   * "computing…".
+   */
   invalidate(uris?: readonly string[]): void {
-    if (!uris) this.cache.clear();
-    let touched = !uris;
-    for (const u of uris ?? []) touched = this.cache.delete(u) || touched;
-    if (touched) void vscode.commands.executeCommand('markdown.preview.refresh');
+    for (const uri of uris ?? [...this.cache.keys()]) if (this.cache.has(uri)) void this.fetch(uri);
   }
 
   private render(kind: string, id: string | null, token: FenceToken, uri: string | null): string {
@@ -86,7 +89,11 @@ export class PreviewCharts {
 
   private async fetch(uri: string): Promise<void> {
     const client = this.client();
-    if (!client || this.inFlight.has(uri)) return;
+    if (!client) return;
+    if (this.inFlight.has(uri)) {
+      this.again.add(uri);
+      return;
+    }
     this.inFlight.add(uri);
     try {
       const theme = serverTheme();
@@ -100,6 +107,7 @@ export class PreviewCharts {
       this.log.warn(`markdown preview: ${e instanceof Error ? e.message : String(e)}`);
     } finally {
       this.inFlight.delete(uri);
+      if (this.again.delete(uri)) void this.fetch(uri);
     }
   }
 }
