@@ -15,7 +15,7 @@ import * as fs from 'node:fs';
 import * as http from 'node:http';
 import type { AddressInfo } from 'node:net';
 import * as path from 'node:path';
-import { build } from 'esbuild';
+import { execFileSync } from 'node:child_process';
 import { chromium, type Page } from 'playwright-core';
 import { figureSpec, stabilityMapSpecs, toVega } from '../extension/core/charts/index.js';
 import { LineIndex, SUMMARY_TABLE_COLUMNS, summarise, summaryCell, type BlockReport } from '../extension/core/index.js';
@@ -26,25 +26,11 @@ import { figureRows } from '../extension/server/figures.js';
 import { loadNotebook, REPO } from '../test/support/loadNotebook.js';
 
 const OUT = path.join(REPO, 'test', 'e2e', 'out');
-const DIST = path.join(REPO, 'dist', 'webview');
 
-// ── the bundle, as scripts/build.mjs makes it ───────────────────────────────────────────────────
+// ── the bundle: the project's own build ─────────────────────────────────────────────────────────
 
-async function buildWebview(): Promise<void> {
-  await build({
-    absWorkingDir: REPO,
-    bundle: true,
-    entryPoints: ['extension/webview/main.ts'],
-    outfile: 'dist/webview/webview.js',
-    format: 'iife',
-    platform: 'browser',
-    target: 'es2022',
-    minify: true,
-    sourcemap: false,
-    logLevel: 'warning',
-  });
-  fs.mkdirSync(DIST, { recursive: true });
-  fs.copyFileSync(path.join(REPO, 'extension/webview/preview.css'), path.join(DIST, 'webview.css'));
+function buildWebview(): void {
+  execFileSync(process.execPath, [path.join(REPO, 'scripts', 'build.mjs')], { cwd: REPO, stdio: 'inherit' });
 }
 
 // ── the demo notebook's charts, as the language server answers `vitrine/charts` ─────────────────
@@ -420,7 +406,7 @@ async function policyRun(browser: import('playwright-core').Browser, origin: str
 
 async function main(): Promise<void> {
   fs.mkdirSync(OUT, { recursive: true });
-  await buildWebview();
+  buildWebview();
   const { origin, server, pages } = await serve();
   const browser = await chromium.launch({
     executablePath: '/usr/bin/chromium',
