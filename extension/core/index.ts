@@ -12,9 +12,9 @@ export { SUMMARY_TABLE_COLUMNS, summaryCell, isNumeric, type SummaryColumn } fro
 export { RESULT_CATALOGUE, RESULT_NAMES, catalogueEntry, type CatalogueEntry, type NumberFormat, type Notation, type ResultName } from './model/catalogue.js';
 export { formatValue, formatUncertainty, formatMeasurement, formatQuantity, formatCsvNumber, formatInterval, unitText, resultText, resultValueText, resultUncertaintyText, resultIntervalText } from './model/formatResult.js';
 export { countDiagnostics, type SeverityCounts } from './engine/counts.js';
-export type { BlockReport, FileReport, NotebookReport } from './model/report.js';
+export type { BlockReport, FileReport, NotebookReport, TableExcerpt } from './model/report.js';
 export type { Diagnostic, Fix, RelatedLocation, Severity, SeverityOverrides } from './model/diagnostic.js';
-export type { ResultValue, Results } from './model/result.js';
+export type { ResultValue, Results, UncertaintyTerm } from './model/result.js';
 export type { FigureData, FigureMarker, FigureSeries } from './model/figure.js';
 export type { Quantity } from './model/quantity.js';
 export type { Span, Position, PositionRange } from './model/span.js';

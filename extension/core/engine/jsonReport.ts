@@ -49,7 +49,8 @@ export function jsonDiagnostic(d: Diagnostic, lines: LineIndex): JsonDiagnostic 
 function tidy(v: ResultValue): ResultValue {
   const r = (x: number): number => (Number.isFinite(x) ? Number(x.toPrecision(12)) : x);
   const out: ResultValue = v.uncertainty !== undefined ? { ...v, value: r(v.value), uncertainty: r(v.uncertainty) } : { ...v, value: r(v.value) };
-  return v.interval ? { ...out, interval: [r(v.interval[0]), r(v.interval[1])] } : out;
+  const withInterval = v.interval ? { ...out, interval: [r(v.interval[0]), r(v.interval[1])] as const } : out;
+  return v.budget ? { ...withInterval, budget: v.budget.map((t) => ({ ...t, value: r(t.value) })) } : withInterval;
 }
 
 export function toJsonReport(report: NotebookReport, pathPrefix = ''): JsonReport {

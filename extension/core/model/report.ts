@@ -22,6 +22,17 @@ export interface BlockReport {
   readonly diagnostics: readonly Diagnostic[];
   /** What the block's chart shows, when its analysis produced one. */
   readonly figure?: FigureData;
+  /** When the block's data table had errors: its first lines as they were read, to show beside the findings. */
+  readonly tableExcerpt?: TableExcerpt;
+}
+
+/** The first lines of a data table as read (decoded, before any parsing). */
+export interface TableExcerpt {
+  /** The data file's path relative to the notebook root, or null for an inline table. */
+  readonly path: string | null;
+  /** 0-based line of the first excerpt line: in the data file, or in the notebook file for an inline table. */
+  readonly firstLine: number;
+  readonly lines: readonly string[];
 }
 
 export interface FileReport {
