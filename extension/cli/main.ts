@@ -13,6 +13,7 @@ import { countDiagnostics, formatDiagnosticLine, summarise, toJsonReport, type J
 import { loadRoot, rootsOf, RootError, type RootRun } from '../node/notebookRoots.js';
 import { ioErrorText } from '../node/notebookText.js';
 import { progressBar, type Progress } from './progress.js';
+import { InitRefused, writeStarter } from './init.js';
 import { OutputError, writeReport } from './report.js';
 import { summaryTable } from './summaryTable.js';
 import { terminalJson, terminalText } from './terminalText.js';
@@ -23,12 +24,15 @@ commands:
   check PATH...            check notebooks; print file:line:col: severity: message [code]
   analyze PATH... --json   print every result and diagnostic as JSON
   report PATH... -o FILE   write a self-contained HTML report with charts
+  init [DIR]               write a small starting notebook into DIR (default: the current folder)
 
 options:
   --root DIR               the notebook folder; PATHs inside it are reported, and references
                            and data paths resolve across the whole folder
   --summary                with check: print a table of the figures of merit per film
   --quiet                  with check: print errors only
+  --verbose                with check: list every place a finding names (all the bad cells of a
+                           data file), each on its own line
   -o, --output FILE        with report: the HTML file to write
   --csv FILE               with report: also write the summary per film as CSV
   --png DIR                with report: also write every chart as PNG into DIR
@@ -133,9 +137,10 @@ async function dispatch(argv: readonly string[], io: CliIo, rawErr: (text: strin
   const command = args.shift();
   const root = takeOption(args, ['--root']);
   if (command === 'report') return report(args, io, root, rawErr);
+  if (command === 'init') return init(args, io);
   const flags = new Set(args.filter((a) => a.startsWith('-')));
   const paths = args.filter((a) => !a.startsWith('-'));
-  const known = command === 'check' ? ['--summary', '--quiet'] : command === 'analyze' ? ['--json'] : [];
+  const known = command === 'check' ? ['--summary', '--quiet', '--verbose'] : command === 'analyze' ? ['--json'] : [];
   if (command !== 'check' && command !== 'analyze') throw new UsageError(`unknown command "${command ?? ''}"`);
 
   for (const f of flags) if (!known.includes(f)) throw new UsageError(`unknown option "${f}" for ${command}`);
@@ -153,7 +158,9 @@ async function dispatch(argv: readonly string[], io: CliIo, rawErr: (text: strin
       const shown = displayPath(run.root, f.path, io.cwd);
       const diags = [...f.diagnostics, ...f.blocks.flatMap((b) => b.diagnostics)].sort((a, b) => a.line - b.line || a.column - b.column);
       for (const d of diags) {
-        if (command === 'check' && (!flags.has('--quiet') || d.severity === 'error')) io.out(formatDiagnosticLine(shown, d) + '\n');
+        if (command !== 'check' || (flags.has('--quiet') && d.severity !== 'error')) continue;
+        io.out(formatDiagnosticLine(shown, d) + '\n');
+        if (flags.has('--verbose')) for (const r of d.related ?? []) io.out(`  ${displayPath(run.root, r.path, io.cwd)}:${r.line}:${r.column}: ${r.message}\n`);
       }
     }
   }
@@ -177,6 +184,26 @@ function noteSkipped(all: readonly RootRun[], io: CliIo): void {
   if (names.length === 0) return;
   const shown = names.length > 12 ? `${names.slice(0, 12).join(', ')} and ${names.length - 12} more` : names.join(', ');
   io.err(`vitrine: skipped ${shown} (hidden folders and node_modules are not searched for notebooks)\n`);
+}
+
+function init(args: string[], io: CliIo): number {
+  const unknown = args.find((a) => a.startsWith('-'));
+  if (unknown) throw new UsageError(`unknown option "${unknown}" for init`);
+  if (args.length > 1) throw new UsageError('init takes one folder');
+  const dir = path.resolve(io.cwd, args[0] ?? '.');
+  try {
+    const written = writeStarter(dir);
+    for (const w of written) io.out(`wrote ${path.relative(io.cwd, w).split(path.sep).join('/') || w}\n`);
+    const shown = path.relative(io.cwd, dir) || '.';
+    io.out(`\nNext: vitrine check ${shown} --summary, then open ${shown} in your editor and make the blocks your own.\n`);
+    return 0;
+  } catch (e) {
+    if (e instanceof InitRefused) {
+      io.err(`vitrine: ${e.message}\n`);
+      return 2;
+    }
+    throw e;
+  }
 }
 
 async function report(args: string[], io: CliIo, root: string | undefined, rawErr: (text: string) => void): Promise<number> {

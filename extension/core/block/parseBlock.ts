@@ -307,7 +307,7 @@ export function parseBlock(input: ParseInput, data: DataTableSource): ParsedBloc
           rowLineToDoc = () => valueSpan;
           const first = table.problems[0];
           if (first) {
-            const related: RelatedLocation[] = table.problems.slice(0, 20).map((p) => ({
+            const related: RelatedLocation[] = table.problems.slice(0, 100).map((p) => ({
               path: resolved.path,
               line: p.line,
               character: p.start,
