@@ -4,7 +4,7 @@
  * practitioners read (K and °C, nm and Å); on a block's fence line, the block's own figures.
  */
 import type { Hover, Position } from 'vscode-languageserver';
-import { catalogueEntry, type Quantity } from '../core/index.js';
+import { catalogueEntry, type Quantity, type TableExcerpt } from '../core/index.js';
 import { at, reportOf } from './blocks.js';
 import { blockHoverMarkdown, figureHoverMarkdown } from './figures.js';
 import type { Workspace } from './workspace.js';
@@ -31,6 +31,7 @@ export function hover(ws: Workspace, uri: string, position: Position): Hover | n
       const current = target ? reportOf(a.place, target)?.results[name] : undefined;
       return markdown(figureHoverMarkdown(name, current), entry.onKey ? entry.keySpan : entry.valueSpan);
     }
+    if (entry.pointer === '/data' && own?.tableExcerpt && !entry.onKey) return markdown(tableExcerptMarkdown(own.tableExcerpt), entry.valueSpan);
     const q = own?.quantities[entry.pointer];
     if (q && !entry.onKey) return markdown(quantityMarkdown(q), entry.valueSpan);
     return null;
@@ -40,7 +41,17 @@ export function hover(ws: Workspace, uri: string, position: Position): Hover | n
   const fenceLine = a.text.position(block.span.start).line;
   if (position.line !== fenceLine) return null;
   const report = reportOf(a.place, block);
-  return report ? markdown(blockHoverMarkdown(report), block.idSpan ?? { start: block.span.start, end: block.span.start + 3 }) : null;
+  if (!report) return null;
+  const excerpt = report.tableExcerpt ? `\n\n---\n\n${tableExcerptMarkdown(report.tableExcerpt)}` : '';
+  return markdown(blockHoverMarkdown(report) + excerpt, block.idSpan ?? { start: block.span.start, end: block.span.start + 3 });
+}
+
+/** The first lines of a failed data table as Vitrine read them, in a fence long enough for any backticks inside. */
+export function tableExcerptMarkdown(excerpt: TableExcerpt): string {
+  const longest = Math.max(2, ...excerpt.lines.map((l) => Math.max(0, ...(l.match(/`+/g) ?? []).map((r) => r.length))));
+  const fence = '`'.repeat(longest + 1);
+  const where = excerpt.path ? `\`${excerpt.path}\`, from line ${excerpt.firstLine + 1}` : `the inline table, from line ${excerpt.firstLine + 1}`;
+  return `**The first lines as read** (${where}):\n\n${fence}text\n${excerpt.lines.join('\n')}\n${fence}`;
 }
 
 /** A quantity in its canonical unit and the other units people read it in. */

@@ -82,26 +82,35 @@ function invert(cdf: (x: number) => number, p: number, lo: number, hi: number): 
   return 0.5 * (lo + hi);
 }
 
+/**
+ * Quantiles are asked for again and again with the same few probabilities and degrees of freedom
+ * (one per fit of a given size): each is inverted once and kept, up to a bounded number.
+ */
+const quantiles = new Map<string, number>();
+function cachedQuantile(key: string, compute: () => number): number {
+  let v = quantiles.get(key);
+  if (v === undefined) {
+    v = compute();
+    if (quantiles.size >= 4096) quantiles.clear();
+    quantiles.set(key, v);
+  }
+  return v;
+}
+
 /** Quantile of Student's t. */
 export function studentTQuantile(p: number, df: number): number {
   if (!(df > 0) || !(p > 0 && p < 1)) return NaN;
   if (p < 0.5) return -studentTQuantile(1 - p, df);
-  return invert((t) => studentTCdf(t, df), p, 0, 10);
+  return cachedQuantile(`t ${p} ${df}`, () => invert((t) => studentTCdf(t, df), p, 0, 10));
 }
 
 /** Quantile of Fisher's F(d1, d2). */
 export function fisherFQuantile(p: number, d1: number, d2: number): number {
   if (!(d1 > 0) || !(d2 > 0) || !(p > 0 && p < 1)) return NaN;
-  return invert((f) => fisherFCdf(f, d1, d2), p, 0, 10);
+  return cachedQuantile(`F ${p} ${d1} ${d2}`, () => invert((f) => fisherFCdf(f, d1, d2), p, 0, 10));
 }
 
-/** Two-sided 95 % t value, cached by df. */
-const t975 = new Map<number, number>();
+/** Two-sided 95 % t value. */
 export function t95(df: number): number {
-  let v = t975.get(df);
-  if (v === undefined) {
-    v = studentTQuantile(0.975, df);
-    t975.set(df, v);
-  }
-  return v;
+  return studentTQuantile(0.975, df);
 }
