@@ -10,8 +10,11 @@ const common = { bundle: true, platform: 'node', target: 'node20', sourcemap: !r
 await Promise.all([
   build({
     ...common,
-    entryPoints: ['extension/cli/bin.ts'],
-    outfile: 'dist/cli.js',
+    // Split, so that `check` and `analyze` never load what only `report` needs.
+    entryPoints: { cli: 'extension/cli/bin.ts' },
+    outdir: 'dist',
+    splitting: true,
+    chunkNames: 'cli-chunks/[name]-[hash]',
     format: 'esm',
     external: ['@resvg/resvg-js'],
     banner: {

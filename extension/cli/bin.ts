@@ -1,9 +1,14 @@
 /** Entry point of the `vitrine` executable. */
 import { runCli } from './main.js';
+import { sourceDateClock } from './sourceDate.js';
+
+// A reproducible report date (reproducible-builds.org's SOURCE_DATE_EPOCH), when it is a valid one.
+const now = sourceDateClock(process.env.SOURCE_DATE_EPOCH, (t) => process.stderr.write(t));
 
 process.exitCode = await runCli(process.argv.slice(2), {
   out: (t) => process.stdout.write(t),
   err: (t) => process.stderr.write(t),
   cwd: process.cwd(),
   errIsTty: process.stderr.isTTY === true,
+  ...(now ? { now } : {}),
 });

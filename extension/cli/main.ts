@@ -14,16 +14,17 @@ import { loadRoot, rootsOf, RootError, type RootRun } from '../node/notebookRoot
 import { ioErrorText } from '../node/notebookText.js';
 import { progressBar, type Progress } from './progress.js';
 import { InitRefused, writeStarter } from './init.js';
-import { OutputError, writeReport } from './report.js';
+import { isOutputError } from './outputError.js';
 import { summaryTable } from './summaryTable.js';
 import { terminalJson, terminalText } from './terminalText.js';
+import { VERSION } from './version.js';
 
 const USAGE = `usage: vitrine <command> PATH... [options]
 
 commands:
   check PATH...            check notebooks; print file:line:col: severity: message [code]
   analyze PATH... --json   print every result and diagnostic as JSON
-  report PATH... -o FILE   write a self-contained HTML report with charts
+  report PATH... -o FILE   write the HTML report: a self-contained lab record with charts
   init [DIR]               write a small starting notebook into DIR (default: the current folder)
 
 options:
@@ -34,8 +35,14 @@ options:
   --verbose                with check: list every place a finding names (all the bad cells of a
                            data file), each on its own line
   -o, --output FILE        with report: the HTML file to write
-  --csv FILE               with report: also write the summary per film as CSV
+  --csv FILE               with report: also write the summary per film as CSV (every
+                           figure with its uncertainty, °C beside K, method, technique)
+  --csv-long FILE          with report: also write every figure as one row per block and
+                           figure (tidy CSV for data frames)
   --png DIR                with report: also write every chart as PNG into DIR
+  --svg DIR                with report: also write every chart as SVG into DIR
+  --print                  with --svg: draw the SVG files one journal column wide, with
+                           print-size text
   -h, --help               show this help
   --version                print the version
 
@@ -52,6 +59,8 @@ export interface CliIo {
   readonly cwd: string;
   /** Standard error is a terminal (a progress bar may be drawn). */
   readonly errIsTty?: boolean;
+  /** The clock of the report's date (tests pass a fixed one). */
+  readonly now?: () => Date;
 }
 
 
@@ -100,7 +109,7 @@ export async function runCli(argv: readonly string[], io: CliIo): Promise<number
       shown.err(`vitrine: ${e.message}\n\n${USAGE}\n`);
       return 2;
     }
-    if (e instanceof OutputError) {
+    if (isOutputError(e)) {
       shown.err(`vitrine: ${e.message}\n`);
       return 2;
     }
@@ -131,7 +140,7 @@ async function dispatch(argv: readonly string[], io: CliIo, rawErr: (text: strin
     return args.length === 0 ? 2 : 0;
   }
   if (args.includes('--version')) {
-    io.out('vitrine 0.1.0\n');
+    io.out(`vitrine ${VERSION}\n`);
     return 0;
   }
   const command = args.shift();
@@ -206,21 +215,39 @@ function init(args: string[], io: CliIo): number {
   }
 }
 
+/** `2026-12-02 14:52 UTC`: the report's date, in UTC so that it reads the same everywhere. */
+function reportDate(now: Date): string {
+  const iso = now.toISOString();
+  return `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC`;
+}
+
 async function report(args: string[], io: CliIo, root: string | undefined, rawErr: (text: string) => void): Promise<number> {
   const output = takeOption(args, ['-o', '--output']);
   const csv = takeOption(args, ['--csv']);
+  const csvLong = takeOption(args, ['--csv-long']);
   const png = takeOption(args, ['--png']);
+  const svg = takeOption(args, ['--svg']);
+  const printAt = args.indexOf('--print');
+  if (printAt >= 0) args.splice(printAt, 1);
   const unknown = args.find((a) => a.startsWith('-'));
   if (unknown) throw new UsageError(`unknown option "${unknown}" for report`);
   if (!output) throw new UsageError('report needs -o FILE');
   if (args.length === 0) throw new UsageError('report needs at least one PATH');
+  if (printAt >= 0 && !svg) throw new UsageError('--print sets the size of the SVG files: add --svg DIR');
   const progress = io.errIsTty ? progressBar(rawErr) : null;
   const all = runs(args, io.cwd, progress, root);
+  const resolve = (p: string | undefined): string | undefined => (p ? path.resolve(io.cwd, p) : undefined);
+  // The charts, the drawing library and the markdown renderer load only for a report.
+  const { writeReport } = await import('./report.js');
   const written = await writeReport(all, {
     output: path.resolve(io.cwd, output),
-    csv: csv ? path.resolve(io.cwd, csv) : undefined,
-    png: png ? path.resolve(io.cwd, png) : undefined,
-    title: args.length === 1 ? `Vitrine report: ${path.basename(path.resolve(io.cwd, args[0]))}` : 'Vitrine report',
+    csv: resolve(csv),
+    csvLong: resolve(csvLong),
+    png: resolve(png),
+    svg: resolve(svg),
+    print: printAt >= 0,
+    title: all.length === 1 ? path.basename(all[0].root) : 'Vitrine notebooks',
+    record: { date: reportDate((io.now ?? (() => new Date()))()), version: VERSION, folders: all.map((r) => r.root) },
     roots: all.map((r) => r.root),
   });
   for (const w of written.warnings) io.err(`vitrine: ${w}\n`);

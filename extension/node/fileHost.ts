@@ -1,7 +1,11 @@
-/** The NotebookHost of the CLI and the server: data files from disk, confined to the notebook root (real paths). */
+/**
+ * The NotebookHost of the CLI and the server: data files from disk, confined to the notebook root
+ * (real paths), decoded from their bytes (dataFileText.ts: UTF-8, UTF-16, Windows-1252).
+ */
 import * as fs from 'node:fs';
 import * as path from 'node:path';
 import type { DataFileRead, NotebookHost } from '../core/index.js';
+import { decodeDataBytes } from './dataFileText.js';
 import { isInside } from './insidePath.js';
 import { fileTypeName, ioErrorText } from './notebookText.js';
 
@@ -29,7 +33,9 @@ export class FileHost implements NotebookHost {
       if (stat.isDirectory()) return { ok: false, reason: 'folder' };
       if (!stat.isFile()) return { ok: false, reason: 'unreadable', detail: `it is ${fileTypeName(stat)}, not a regular file` };
       if (stat.size > maxBytes) return { ok: false, reason: 'too-large', size: stat.size };
-      return { ok: true, text: fs.readFileSync(real, 'utf8') };
+      // Instrument exports come in UTF-8, UTF-16 or Windows-1252: decoded by their bytes.
+      const decoded = decodeDataBytes(fs.readFileSync(real));
+      return decoded.ok ? { ok: true, text: decoded.text } : { ok: false, reason: 'unreadable', detail: decoded.detail };
     } catch (e) {
       return { ok: false, reason: 'unreadable', detail: ioErrorText(e) };
     }

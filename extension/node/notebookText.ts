@@ -11,25 +11,14 @@
  */
 import * as fs from 'node:fs';
 import { MAX_NOTEBOOK_FILE_BYTES, type NotebookFileFailure } from '../core/index.js';
+import { decodeTextBytes } from './textBytes.js';
 
 export type NotebookTextRead = { readonly ok: true; readonly text: string } | { readonly ok: false; readonly failure: NotebookFileFailure };
 
-const BOM = '\uFEFF';
-
-/** The text of a notebook file's bytes, BOMs removed, or why it cannot be decoded. */
+/** The text of a notebook file's bytes (UTF-8, or UTF-16 with its byte-order mark), BOMs removed, or why it cannot be decoded. */
 export function decodeNotebookBytes(bytes: Uint8Array): { readonly ok: true; readonly text: string } | { readonly ok: false; readonly detail: string } {
-  const b = bytes;
-  if ((b[0] === 0xff && b[1] === 0xfe && b[2] === 0 && b[3] === 0) || (b[0] === 0 && b[1] === 0 && b[2] === 0xfe && b[3] === 0xff)) {
-    return { ok: false, detail: 'it is encoded as UTF-32; save it as UTF-8' };
-  }
-  let text: string;
-  if (b[0] === 0xff && b[1] === 0xfe) text = new TextDecoder('utf-16le').decode(b);
-  else if (b[0] === 0xfe && b[1] === 0xff) text = new TextDecoder('utf-16be').decode(b);
-  else text = new TextDecoder('utf-8').decode(b);
-  // TextDecoder drops one BOM; any further one is not text either.
-  let start = 0;
-  while (text.startsWith(BOM, start)) start++;
-  return { ok: true, text: start > 0 ? text.slice(start) : text };
+  const decoded = decodeTextBytes(bytes);
+  return decoded.ok ? { ok: true, text: decoded.text } : decoded;
 }
 
 /** What an operating-system error means, in words: "permission denied", "the name is too long". */

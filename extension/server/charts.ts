@@ -3,8 +3,9 @@
  * block at a line) with their figures and diagnostics, and the workspace summary with its maps.
  * The chart library is loaded on the first request, never at start.
  */
-import { summarise, SUMMARY_TABLE_COLUMNS, summaryCell, type BlockReport, type NotebookReport } from '../core/index.js';
+import { summarise, SUMMARY_TABLE_COLUMNS, summaryCell, type NotebookReport } from '../core/index.js';
 import type { BlockChart, ChartsParams, ChartsResult, SummaryParams, SummaryResult } from '../protocol/server.js';
+import { chartTitle } from '../core/charts/titles.js';
 import { figureRows } from './figures.js';
 import type { Workspace } from './workspace.js';
 
@@ -21,15 +22,12 @@ async function renderSvg(spec: Record<string, unknown>): Promise<string> {
   return render(spec);
 }
 
-/** A chart title that says what the block is: kind and id, film or material, substrate temperature. */
-export function chartTitle(block: BlockReport, film?: BlockReport): string {
-  const parts = [`${block.kind} ${block.id ?? ''}`.trim()];
-  const of = typeof block.metadata.film === 'string' ? block.metadata.film : typeof block.metadata.material === 'string' ? block.metadata.material : null;
-  if (of) parts.push(of);
-  const tsub = film?.quantities['/substrate_temperature']?.value;
-  if (tsub !== undefined) parts.push(`Tsub ${Number(tsub.toFixed(1))} K`);
-  return parts.join(' · ');
-}
+/**
+ * A chart title that says what the block shows: block id, film, material and substrate
+ * temperature ("R-02 · film D-02 (amberine-3, Tsub 270 K)"), given the film's deposition block.
+ * The titles module carries no chart library, so the server can load it at start.
+ */
+export { chartTitle };
 
 export async function fileCharts(ws: Workspace, params: ChartsParams): Promise<ChartsResult | null> {
   const place = ws.placeOf(params.uri);
@@ -49,7 +47,7 @@ export async function fileCharts(ws: Workspace, params: ChartsParams): Promise<C
     let vega: unknown = null;
     if (b.figure) {
       try {
-        vega = lib.toVega(lib.figureSpec(title, b.figure, params.theme));
+        vega = lib.toVega(lib.figureSpec(title, b.figure, { theme: params.theme }));
       } catch {
         vega = null;
       }
@@ -91,7 +89,8 @@ export async function workspaceSummary(ws: Workspace, params: SummaryParams): Pr
     }
     const films = summarise(report);
     if (films.length === 0) continue;
-    for (const m of lib.stabilityMapSpecs(films, report, params.theme)) {
+    // Maps that still need films are left out here (the summary table shows what there is).
+    for (const m of lib.stabilityMapSpecs(films, report, { theme: params.theme })) {
       try {
         maps.push({ title: m.name, vega: lib.toVega(m.spec) });
       } catch {

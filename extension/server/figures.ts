@@ -17,12 +17,12 @@ export const HEADLINES: Readonly<Record<BlockKind, readonly string[]>> = {
   results: [],
 };
 
-export function labelOf(name: string): string {
-  return catalogueEntry(name)?.label ?? name;
+export function labelOf(name: string, kind?: BlockKind): string {
+  return catalogueEntry(name, kind)?.label ?? name;
 }
 
-export function figureRow(name: string, r: ResultValue): FigureRow {
-  const entry = catalogueEntry(name);
+export function figureRow(name: string, r: ResultValue, kind?: BlockKind): FigureRow {
+  const entry = catalogueEntry(name, kind);
   return { name, label: entry?.label ?? name, text: resultText(name, r), method: r.method, meaning: entry?.meaning ?? '' };
 }
 
@@ -30,14 +30,14 @@ export function figureRow(name: string, r: ResultValue): FigureRow {
 export function figureRows(block: BlockReport): FigureRow[] {
   const head = HEADLINES[block.kind].filter((n) => block.results[n]);
   const rest = Object.keys(block.results).filter((n) => !head.includes(n));
-  return [...head, ...rest].map((n) => figureRow(n, block.results[n]));
+  return [...head, ...rest].map((n) => figureRow(n, block.results[n], block.kind));
 }
 
 /** The headline figures as one line: `Tg 314.2 ± 0.3 K · Tf 301.5 K`. Empty when there are none. */
 export function headlineText(block: BlockReport): string {
   return HEADLINES[block.kind]
     .filter((n) => block.results[n])
-    .map((n) => `${labelOf(n)} ${resultText(n, block.results[n])}`)
+    .map((n) => `${labelOf(n, block.kind)} ${resultText(n, block.results[n])}`)
     .join(' · ');
 }
 
@@ -74,6 +74,8 @@ export function figureHoverMarkdown(name: string, r: ResultValue | undefined): s
   const lines = [`**${entry?.label ?? name}**${r ? ` = ${resultText(name, r)}` : ''}`];
   if (entry) lines.push(entry.meaning);
   if (r) lines.push(`Method: ${escapeMarkdown(r.method)}`);
+  // The uncertainty budget, one line per term (standard uncertainties, largest first).
+  if (r?.budget?.length) lines.push(['Uncertainty budget:', ...r.budget.map((t) => `- ${escapeMarkdown(t.source)}: ${escapeMarkdown(String(Number(t.value.toPrecision(2))))} ${escapeMarkdown(r.unit === '1' ? '' : r.unit)}${t.note ? ` (${escapeMarkdown(t.note)})` : ''}`)].join('\n'));
   if (entry) lines.push(`Source: ${escapeMarkdown(entry.source)}`);
   return lines.join('\n\n');
 }

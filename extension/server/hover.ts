@@ -51,7 +51,7 @@ export function tableExcerptMarkdown(excerpt: TableExcerpt): string {
   const longest = Math.max(2, ...excerpt.lines.map((l) => Math.max(0, ...(l.match(/`+/g) ?? []).map((r) => r.length))));
   const fence = '`'.repeat(longest + 1);
   const where = excerpt.path ? `\`${excerpt.path}\`, from line ${excerpt.firstLine + 1}` : `the inline table, from line ${excerpt.firstLine + 1}`;
-  return `**The first lines as read** (${where}):\n\n${fence}text\n${excerpt.lines.join('\n')}\n${fence}`;
+  return `**The table as read** (${where}):\n\n${fence}text\n${excerpt.lines.join('\n')}\n${fence}`;
 }
 
 /** A quantity in its canonical unit and the other units people read it in. */
@@ -84,5 +84,8 @@ export function quantityMarkdown(q: Quantity): string {
       lines.push(`${n(v)}${pm(1)} ${q.unit}`);
   }
   const written = q.writtenUnit ? `written in ${q.writtenUnit}` : 'written without a unit';
-  return `${lines.join(' = ')}\n\n_${written}_`;
+  // A bound (`< 3e-7 Torr`) is shown as one, in every unit.
+  const sign = q.bound === 'upper' ? '< ' : q.bound === 'lower' ? '> ' : '';
+  const bound = q.bound ? `, an ${q.bound} bound` : '';
+  return `${lines.map((l) => sign + l).join(' = ')}\n\n_${written}${bound}_`;
 }

@@ -1,19 +1,25 @@
 /**
  * The preview's chart theme, in three pure steps:
  *
- *   editor CSS variables + theme kind ──► ChartColours ──► Vega config ──► a compiled spec re-themed
+ *   editor theme kind (+ CSS variables in high contrast) ──► ChartColours ──► Vega config
+ *                                                        ──► a compiled spec re-themed
+ *
+ * Light and dark editors get Vitrine's own look, the same as the exported charts: the surfaces,
+ * role colours and fonts of the design tokens (`tokens.ts`), light or dark as the editor is. A
+ * high-contrast editor keeps its own background, foreground and font, with the role colours of
+ * the token theme closer to its background.
  *
  * No DOM access and no DOM types: the webview reads the variables and passes them in, and the
  * unit tests run this file on plain Node.
  *
  * The compiled specs come from the language server already themed for light or dark. Their own
- * config keeps what the chart says (palette, legend layout); its colours and fonts give way to the
- * editor's. Marker rules and their labels carry constant colours (ink, and a halo in the
- * background colour), so those are mapped as well: a constant equal to the spec's background
- * becomes the editor's background, and a grey constant on a rule or text mark becomes the
- * editor's foreground.
+ * config keeps what the chart says; its colours and fonts give way to ours. Marks carry constant
+ * token colours (ink, the halo in the sheet colour, role and material colours), so those are
+ * mapped as well: a surface colour of either token theme becomes the matching chart colour, and
+ * a role or material colour of the other token theme becomes its counterpart in this one.
  */
 import type { Config } from 'vega';
+import { MATERIAL_COLOURS, ROLE, SURFACE, TYPE, type Theme } from '../core/charts/tokens.js';
 import type { ChartTheme } from '../protocol/webview.js';
 
 /** The editor variables the chart theme reads. */
@@ -27,22 +33,30 @@ export type ThemeVariables = Readonly<Partial<Record<ThemeVariable, string>>>;
 export interface ChartColours {
   readonly background: string;
   readonly foreground: string;
-  /** Axis lines and ticks. */
+  /** Axis lines and ticks, axis titles. */
   readonly muted: string;
   readonly grid: string;
   readonly font: string;
-  /** The base size in px that chart text sizes derive from (the editor's font size). */
+  /** The chart title's face. */
+  readonly titleFont: string;
+  /** The base size in px that chart text sizes derive from. */
   readonly fontSize: number;
+  /** The token theme whose role and material colours the marks take. */
+  readonly tokens: Theme;
 }
 
-const DEFAULTS: Readonly<Record<ChartTheme, { background: string; foreground: string; grid: string; muted: string }>> = {
-  light: { background: '#ffffff', foreground: '#222222', grid: '#e6e6e6', muted: '#888888' },
-  dark: { background: '#1e1e1e', foreground: '#d4d4d4', grid: '#3a3a3a', muted: '#8a8a8a' },
-  'high-contrast': { background: '#000000', foreground: '#ffffff', grid: '#6fc3df', muted: '#ffffff' },
-};
+/** Vitrine's surfaces for a token theme. */
+function tokenColours(theme: Theme): ChartColours {
+  const s = SURFACE[theme];
+  return { background: s.sheet, foreground: s.ink, muted: s.pencil, grid: s.grid, font: TYPE.figures, titleFont: TYPE.text, fontSize: TOKEN_FONT_SIZE, tokens: theme };
+}
+
+const HIGH_CONTRAST = { background: '#000000', foreground: '#ffffff', grid: '#6fc3df', muted: '#ffffff' } as const;
 
 const DEFAULT_FONT = 'sans-serif';
 const DEFAULT_FONT_SIZE = 13;
+/** The base size that makes the labels TYPE.size.chartLabel (0.8 of it, rounded). */
+const TOKEN_FONT_SIZE = 14;
 
 /** The theme kind from the body's classes (`vscode-light`, `vscode-dark`, `vscode-high-contrast`…), else `fallback`. */
 export function themeKindOf(bodyClasses: readonly string[], fallback: ChartTheme): ChartTheme {
@@ -53,33 +67,24 @@ export function themeKindOf(bodyClasses: readonly string[], fallback: ChartTheme
 }
 
 /**
- * The chart colours for the editor's variables and theme kind. With `forceLight`, the colours are
- * the light defaults whatever the editor shows; fonts still follow the editor.
+ * The chart colours for the editor's theme kind: Vitrine's light or dark surfaces, or in high
+ * contrast the editor's own colours and font. With `forceLight`, Vitrine's light surfaces
+ * whatever the editor shows.
  */
 export function chartColours(vars: ThemeVariables, kind: ChartTheme, forceLight: boolean): ChartColours {
+  if (forceLight || kind === 'light') return tokenColours('light');
+  if (kind === 'dark') return tokenColours('dark');
   const font = clean(vars['--vscode-font-family']) ?? DEFAULT_FONT;
   const fontSize = pixelSize(vars['--vscode-editor-font-size']);
-  if (forceLight) return { ...DEFAULTS.light, font, fontSize };
-  const base = DEFAULTS[kind];
-  const background = clean(vars['--vscode-editor-background']) ?? base.background;
-  const foreground = clean(vars['--vscode-editor-foreground']) ?? base.foreground;
+  const background = clean(vars['--vscode-editor-background']) ?? HIGH_CONTRAST.background;
+  const foreground = clean(vars['--vscode-editor-foreground']) ?? HIGH_CONTRAST.foreground;
   const border = clean(vars['--vscode-panel-border']);
   const bg = parseColour(background);
   const fg = parseColour(foreground);
-  let grid: string;
-  let muted: string;
-  if (kind === 'high-contrast') {
-    // Full ink for the axes; a grid plain enough to see but quieter than the data.
-    grid = bg && fg ? toHex(mix(fg, bg, 0.35)) : (border ?? foreground);
-    muted = foreground;
-  } else if (bg && fg) {
-    grid = toHex(mix(fg, bg, 0.14));
-    muted = toHex(mix(fg, bg, 0.55));
-  } else {
-    grid = border ?? base.grid;
-    muted = base.muted;
-  }
-  return { background, foreground, muted, grid, font, fontSize };
+  // Full ink for the axes; a grid plain enough to see but quieter than the data.
+  const grid = bg && fg ? toHex(mix(fg, bg, 0.35)) : (border ?? HIGH_CONTRAST.grid);
+  const tokens: Theme = bg && luminance(bg) > 0.5 ? 'light' : 'dark';
+  return { background, foreground, muted: foreground, grid, font, titleFont: font, fontSize, tokens };
 }
 
 /** The Vega config for a set of chart colours: background, axes, legends, titles and text. */
@@ -92,7 +97,7 @@ export function vegaConfig(c: ChartColours): Config {
     background: c.background,
     axis: {
       labelColor: c.foreground,
-      titleColor: c.foreground,
+      titleColor: c.muted,
       domainColor: c.muted,
       tickColor: c.muted,
       gridColor: c.grid,
@@ -104,12 +109,12 @@ export function vegaConfig(c: ChartColours): Config {
       labelSeparation: 4,
     },
     legend: { labelColor: c.foreground, titleColor: c.foreground, labelFont: c.font, titleFont: c.font, labelFontSize: label, titleFontSize: label },
-    title: { color: c.foreground, subtitleColor: c.foreground, font: c.font, subtitleFont: c.font, fontSize: title },
+    title: { color: c.foreground, subtitleColor: c.muted, font: c.titleFont, subtitleFont: c.font, fontSize: title },
     text: { ...ink },
     style: {
       'guide-label': { ...ink },
       'guide-title': { ...ink },
-      'group-title': { ...ink, fontSize: title },
+      'group-title': { ...ink, font: c.titleFont, fontSize: title },
       'group-subtitle': { ...ink },
       text: { ...ink },
     },
@@ -123,22 +128,49 @@ export interface ThemedSpecOptions {
 
 /**
  * A compiled Vega spec re-themed with the chart colours: its background, its config (ours wins
- * over its own) and the constant ink and halo colours of its marks. Returns a new object; the
- * input is not changed. Null when `spec` is not an object.
+ * over its own) and the constant token colours of its marks. Returns a new object; the input is
+ * not changed. Null when `spec` is not an object.
  */
 export function themedSpec(spec: unknown, c: ChartColours, options: ThemedSpecOptions = {}): Record<string, unknown> | null {
   if (!isRecord(spec)) return null;
   const oldBackground = typeof spec.background === 'string' ? parseColour(spec.background) : null;
   const out: Record<string, unknown> = { ...spec, background: c.background, config: mergeDeep(isRecord(spec.config) ? spec.config : {}, vegaConfig(c) as Record<string, unknown>) };
-  if (Array.isArray(spec.marks)) out.marks = spec.marks.map((m) => recolourMark(m, oldBackground, c));
+  const map = colourMap(c);
+  if (Array.isArray(spec.marks)) out.marks = spec.marks.map((m) => recolourMark(m, oldBackground, c, map));
   if (options.dropTitle) delete out.title;
   return out;
+}
+
+/**
+ * Token colours to chart colours: the surfaces of both token themes to the chart's surfaces, and
+ * the role and material colours of both to those of the chart's token theme (keys lower case).
+ */
+function colourMap(c: ChartColours): Map<string, string> {
+  const map = new Map<string, string>();
+  // Later entries win where tokens share a colour: roles over materials, surfaces (the ink that
+  // is also the fit's colour) over roles.
+  for (const theme of ['light', 'dark'] as const) MATERIAL_COLOURS[theme].forEach((colour, i) => map.set(colour.toLowerCase(), MATERIAL_COLOURS[c.tokens][i]));
+  for (const theme of ['light', 'dark'] as const) for (const role of Object.values(ROLE)) map.set(role[theme].toLowerCase(), role[c.tokens]);
+  for (const theme of ['light', 'dark'] as const) {
+    const s = SURFACE[theme];
+    for (const [from, to] of [
+      [s.sheet, c.background],
+      [s.paper, c.background],
+      [s.ink, c.foreground],
+      [s.pencil, c.muted],
+      [s.rule, c.muted],
+      [s.grid, c.grid],
+    ]) {
+      map.set(from.toLowerCase(), to);
+    }
+  }
+  return map;
 }
 
 const COLOUR_CHANNELS = ['fill', 'stroke'] as const;
 const INK_MARKS = new Set(['text', 'rule']);
 
-function recolourMark(mark: unknown, oldBackground: Rgba | null, c: ChartColours): unknown {
+function recolourMark(mark: unknown, oldBackground: Rgba | null, c: ChartColours, map: ReadonlyMap<string, string>): unknown {
   if (!isRecord(mark)) return mark;
   const out: Record<string, unknown> = { ...mark };
   const inkMark = typeof mark.type === 'string' && INK_MARKS.has(mark.type);
@@ -151,23 +183,25 @@ function recolourMark(mark: unknown, oldBackground: Rgba | null, c: ChartColours
       }
       const next: Record<string, unknown> = { ...channels };
       for (const channel of COLOUR_CHANNELS) {
-        if (channel in channels) next[channel] = recolourRef(channels[channel], oldBackground, inkMark, c);
+        if (channel in channels) next[channel] = recolourRef(channels[channel], oldBackground, inkMark, c, map);
       }
       encode[set] = next;
     }
     out.encode = encode;
   }
-  if (Array.isArray(mark.marks)) out.marks = mark.marks.map((m) => recolourMark(m, oldBackground, c));
+  if (Array.isArray(mark.marks)) out.marks = mark.marks.map((m) => recolourMark(m, oldBackground, c, map));
   return out;
 }
 
 /** A value reference `{ value: colour }`, or a list of production rules, with its constant colours mapped. */
-function recolourRef(ref: unknown, oldBackground: Rgba | null, inkMark: boolean, c: ChartColours): unknown {
-  if (Array.isArray(ref)) return ref.map((r) => recolourRef(r, oldBackground, inkMark, c));
+function recolourRef(ref: unknown, oldBackground: Rgba | null, inkMark: boolean, c: ChartColours, map: ReadonlyMap<string, string>): unknown {
+  if (Array.isArray(ref)) return ref.map((r) => recolourRef(r, oldBackground, inkMark, c, map));
   if (!isRecord(ref) || typeof ref.value !== 'string') return ref;
   const colour = parseColour(ref.value);
   if (!colour) return ref;
   if (oldBackground && sameColour(colour, oldBackground)) return { ...ref, value: c.background };
+  const mapped = map.get(ref.value.trim().toLowerCase());
+  if (mapped) return { ...ref, value: mapped };
   if (inkMark && isGrey(colour)) return { ...ref, value: c.foreground };
   return ref;
 }
@@ -209,6 +243,15 @@ function toHex(c: Rgba): string {
 
 function sameColour(a: Rgba, b: Rgba): boolean {
   return Math.abs(a[0] - b[0]) < 1 && Math.abs(a[1] - b[1]) < 1 && Math.abs(a[2] - b[2]) < 1;
+}
+
+/** Relative luminance (WCAG 2.x) of an sRGB colour, 0–1. */
+function luminance(c: Rgba): number {
+  const lin = (v: number) => {
+    const x = v / 255;
+    return x <= 0.04045 ? x / 12.92 : ((x + 0.055) / 1.055) ** 2.4;
+  };
+  return 0.2126 * lin(c[0]) + 0.7152 * lin(c[1]) + 0.0722 * lin(c[2]);
 }
 
 function isGrey(c: Rgba): boolean {

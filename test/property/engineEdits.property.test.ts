@@ -38,6 +38,9 @@ const PIECES = [
   '> ```material M-2\n> name: other glass\n> tg: 330 K\n> ```\n',
   'Some prose about the day.\n',
   '# A heading\n',
+  // A substrate temperature resolved through the material's tg, and a near miss of a kind.
+  '```deposition D-4\nmaterial: M-1\nsubstrate_temperature: 0.9 Tg\nrate: 0.1 nm/s\nduration: 100 s\n```\n',
+  '```Deposition D-5\nmaterial: M-1\n```\n',
 ];
 const DATA: Content[] = [csvOf(312), csvOf(318), 'T/K, h/nm\n300, x\n', { ok: false, reason: 'unreadable', detail: 'permission denied' }, { ok: false, reason: 'too-large', size: 1e9 }];
 const FILES = ['a.md', 'b.md', 'days/c.md'];

@@ -142,6 +142,21 @@ describe('language server over stdio', function () {
     assert.match(JSON.stringify(onHeader.contents), /Tsub\/Tg/);
   });
 
+  it('shows the lines of a failed data table as read, on the data path and on the fence line', async () => {
+    const ramp = '```ramp R-1\nfilm: D-1\nrate: 1 K/min\ndata: scan.csv\n```\n';
+    root = tempNotebook({ 'm.md': MATERIAL, 'd.md': DEPOSITION, 'r.md': ramp, 'scan.csv': 'T/K; h/nm\n300; 100.0\n301; lots\n302; 100.2\n' });
+    client = await startServer(root);
+    const uri = uriOf(path.join(root, 'r.md'));
+    client.open(uri, ramp);
+    await client.waitForDiagnostics(uri, (d) => d.length > 0);
+    const onData: Hover = await client.connection.sendRequest('textDocument/hover', { textDocument: { uri }, position: { line: 3, character: 9 } });
+    const text = JSON.stringify(onData.contents);
+    assert.match(text, /The table as read/);
+    assert.match(text, /301; lots/);
+    const onFence: Hover = await client.connection.sendRequest('textDocument/hover', { textDocument: { uri }, position: { line: 0, character: 9 } });
+    assert.match(JSON.stringify(onFence.contents), /301; lots/);
+  });
+
   it('goes to definitions, finds references and renames ids across files in one edit', async () => {
     root = tempNotebook({ 'm.md': MATERIAL, 'd.md': DEPOSITION, 'e.md': DEPOSITION.replace('D-1', 'D-2') });
     client = await startServer(root);

@@ -79,8 +79,8 @@ describe('architecture', () => {
 
   it('pins the names of the three entry points', () => {
     assert.deepEqual(Object.keys(engine).sort(), ["BLOCK_KINDS","DIAGNOSTIC_CODES","ID_PATTERN","InMemoryHost","LineIndex","MAX_DATA_FILE_BYTES","MAX_NOTEBOOK_FILE_BYTES","NO_FILES","Notebook","RESULT_CATALOGUE","RESULT_NAMES","SUMMARY_TABLE_COLUMNS","blockKeys","catalogueEntry","countDiagnostics","formatCsvNumber","formatDiagnosticLine","formatInterval","formatMeasurement","formatQuantity","formatUncertainty","formatValue","isNumeric","requiredAlternatives","resultIntervalText","resultText","resultUncertaintyText","resultValueText","scanFencedBlocks","stripBom","summarise","summaryCell","toJsonReport","toOneBased","toOneBasedPoint","unitText","visibleSpan"].map(String));
-    assert.deepEqual(Object.keys(charts).sort(), ['PALETTE', 'figureSpec', 'stabilityMapSpecs', 'themeConfig', 'toVega']);
-    assert.deepEqual(Object.keys(report).sort(), ['buildHtmlReport', 'escapeHtml', 'summaryCsv']);
+    assert.deepEqual(Object.keys(charts).sort(), ['blockChartSpec', 'blockChartTitle', 'chartTitle', 'figureSpec', 'notebookMaterials', 'relaxationMapSpec', 'stabilityMapSpecs', 'stabilityMaps', 'themeConfig', 'toVega', 'tsubSeriesSpec']);
+    assert.deepEqual(Object.keys(report).sort(), ['buildHtmlReport', 'escapeHtml', 'longCsv', 'subjectText', 'subjectsOf', 'summaryCsv']);
   });
 
   it('bundles the engine without vega, vega-lite, d3 or the markdown parser', async () => {

@@ -18,6 +18,8 @@ import {
 import { buildHtmlReport } from '../../extension/core/report/htmlReport.js';
 import { summaryCsv } from '../../extension/core/report/summaryCsv.js';
 import { csvField } from '../../extension/core/report/escape.js';
+import { powerOfTenHtml } from '../../extension/core/report/readable.js';
+import { csvRecords, parseCsv } from '../support/csv.js';
 import { loadNotebook } from '../support/loadNotebook.js';
 import { uniform } from '../support/random.js';
 
@@ -206,7 +208,7 @@ describe('summary columns in the CLI table, the HTML summary and the CSV', () =>
   const cli = summaryTable([row]);
   const html = buildHtmlReport({ title: 't', report: { files: [] }, charts: new Map(), summary: [row], maps: [] });
   const csv = summaryCsv([row]).trim().split('\n');
-  const csvRow = new Map(csv[0].split(',').map((h, i) => [h, csv[1].split(',')[i]]));
+  const csvRow = csvRecords(summaryCsv([row]))[0];
 
   it('print the same value identically', () => {
     const cells: Array<[string, string, string[]]> = [
@@ -221,7 +223,8 @@ describe('summary columns in the CLI table, the HTML summary and the CSV', () =>
     const cliCells = cli.split('\n')[2].split(/\s{2,}/);
     for (const [text, csvHeader, csvTexts] of cells) {
       assert.ok(cliCells.includes(text), `CLI: ${text} in ${cli}`);
-      assert.match(html, new RegExp(`<td class="num">${text.replace(/[.+()]/g, '\\$&')}</td>`), `HTML: ${text}`);
+      // The HTML writes an exponent as a power of ten and may add °C beside a temperature.
+      assert.ok(html.includes(`<td class="num">${powerOfTenHtml(text)}</td>`) || html.includes(`<td class="num">${powerOfTenHtml(text)}<span class="beside">`), `HTML: ${text}`);
       assert.equal(csvRow.get(csvHeader), csvTexts[0], `CSV ${csvHeader}`);
       if (csvTexts[1]) assert.equal(csvRow.get(`u(${csvHeader.replace('/', ')/')}`), csvTexts[1]);
     }
@@ -236,19 +239,34 @@ describe('summary columns in the CLI table, the HTML summary and the CSV', () =>
     assert.equal(quantityHeader(RESULT_CATALOGUE.density_gain.label, '%'), '(Δρ/ρ)/%');
   });
 
-  it('keep the CSV header names with units', () => {
-    assert.deepEqual(SUMMARY_COLUMNS.flatMap(csvHeaders), ['film', 'material', 'file', 'Tsub/K', 'Tsub/Tg', 'rate/(nm/s)', 'thickness/nm', 'Tg/K', 'u(Tg)/K', 'Tonset/K', 'u(Tonset)/K', 'Tf/K', 'u(Tf)/K', 'density_gain/%', 'u(density_gain)/%', 'stability_ratio']);
+  it('keep the CSV header names with units, °C beside K and the method of each figure', () => {
+    assert.deepEqual(SUMMARY_COLUMNS.flatMap(csvHeaders), [
+      'film', 'material', 'file', 'Tsub/K', 'Tsub/°C', 'Tsub/Tg', 'rate/(nm/s)', 'thickness/nm',
+      'Tg/K', 'u(Tg)/K', 'Tg/°C', 'method(Tg)', 'technique', 'scan', 'scan_rate/(K/min)',
+      'Tonset/K', 'u(Tonset)/K', 'Tonset/°C', 'method(Tonset)', 'Tf/K', 'u(Tf)/K', 'Tf/°C', 'method(Tf)',
+      'density_gain/%', 'u(density_gain)/%', 'method(density_gain)', 'stability_ratio', 'u(stability_ratio)', 'method(stability_ratio)',
+      'aging_time_low/s', 'aging_time_high/s', 'method(aging_time)', 'enthalpy_gap/(J/g)', 'u(enthalpy_gap)/(J/g)', 'method(enthalpy_gap)',
+      'front_velocity/(nm/s)', 'u(front_velocity)/(nm/s)', 'method(front_velocity)', 'fragility', 'u(fragility)', 'method(fragility)',
+    ]);
     assert.equal(csv[0], SUMMARY_COLUMNS.flatMap(csvHeaders).join(','));
+  });
+
+  it('write °C beside K at the same decimal place (ITS-90: t/°C = T/K − 273.15)', () => {
+    // 313.829 K − 273.15 = 40.679 °C; 270.0 K is −3.15 °C, shown at 0.1: −3.2 (half away from zero).
+    assert.equal(csvRow.get('Tg/°C'), '40.679');
+    assert.equal(csvRow.get('Tsub/°C'), '-3.2');
+    assert.equal(csvRow.get('Tonset/°C'), '58.4', '331.5 K (four digits) → 58.35… °C at 0.1');
+    assert.match(html, /313\.829 ± 0\.069<span class="beside">40\.679 °C<\/span>/);
   });
 
   it('write a CSV of the demo notebook free of binary noise', () => {
     const { notebook } = loadNotebook('fixtures/demo');
-    const lines = summaryCsv(summarise(notebook.analyze())).trim().split('\n');
+    const lines = parseCsv(summaryCsv(summarise(notebook.analyze())));
     assert.equal(lines.length, 1 + 4);
-    const numeric = new Set(SUMMARY_COLUMNS.filter((c) => c.type !== 'text').flatMap(csvHeaders));
-    const header = lines[0].split(',');
+    const numeric = new Set(SUMMARY_COLUMNS.filter((c) => c.type !== 'text').flatMap(csvHeaders).filter((h) => !h.startsWith('method(')));
+    const header = lines[0];
     for (const line of lines.slice(1)) {
-      line.split(',').forEach((field, i) => {
+      line.forEach((field, i) => {
         if (!numeric.has(header[i]) || field === '') return;
         assert.match(field, /^-?\d+(\.\d+)?(e[+-]\d+)?$/, `${header[i]}: ${field}`);
         assert.ok(significantDigits(field) <= 7, `${header[i]}: ${field}`);

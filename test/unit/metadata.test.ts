@@ -37,3 +37,22 @@ describe('parseMetadata', () => {
     assert.ok(m.spans.has('/rate'));
   });
 });
+
+describe('decimal commas and YAML flow lists', () => {
+  it('leaves a flow list split at its commas, and a plain value whole', () => {
+    // YAML 1.2 (2009), 7.4: a comma separates the entries of a flow sequence.
+    const m = parseMetadata('glass: [250,280]\ntsub: 12,5 °C\n');
+    assert.deepEqual(m.data.glass, [250, 280]);
+    assert.equal(m.data.tsub, '12,5 °C');
+    assert.ok(m.spans.has('/glass/1'));
+  });
+});
+
+describe('clock times in metadata', () => {
+  it('keeps "1:10" as text, for the quantity reader to judge', () => {
+    // YAML 1.2 (2009), 10.3.2: the core schema has no base-60 integers; YAML 1.1 read "1:10" as 70.
+    const m = parseMetadata('duration: 1:10\nhold: 00:29:10\n');
+    assert.equal(m.data.duration, '1:10');
+    assert.equal(m.data.hold, '00:29:10');
+  });
+});

@@ -126,7 +126,7 @@ describe('finite figures only', () => {
   });
 
   it('refuses a quantity that overflows when converted to its canonical unit', () => {
-    assert.deepEqual(parseQuantity('1e308 GPa', 'pressure'), { ok: false, reason: 'not-finite', unitText: 'GPa' });
+    assert.deepEqual(parseQuantity('1e308 GPa', 'pressure'), { ok: false, reason: 'not-finite', unitText: 'GPa', unitSpans: [] });
     assert.equal(parseQuantity('1e308 Pa', 'pressure').ok, true);
   });
 });

@@ -43,4 +43,53 @@ describe('standard Tg of a material', () => {
     assert.ok(codes.includes('material.tg-extrapolated'));
     assert.ok(codes.includes('material.few-rates'));
   });
+
+  it('carries the scatter of replicate ramps that disagree by 15 K, and flags them', () => {
+    // Two ramps of one material at 10 K/min, Tg 310 and 325 K. Their mean is 317.5 K; the standard
+    // uncertainty of a mean of two is s/√2 = 7.5 K (GUM, JCGM 100:2008 §4.2.3), not the ramps'
+    // own ±0.5 K; the Birge ratio (Birge, Phys. Rev. 40, 207 (1932)) says they disagree.
+    const b = materialResults(MATERIAL_BLOCK(315), [[10, 310], [10, 325]]);
+    const r = b.results.standard_tg;
+    assert.ok(Math.abs(r.value - 317.5) < 1e-6, `${r.value}`);
+    assert.ok(r.uncertainty! >= 7.5 && r.uncertainty! < 7.6, `u ${r.uncertainty}`);
+    assert.ok(r.budget!.some((t) => t.source === 'replicates' && t.value > 7.4));
+    assert.ok(b.diagnostics.some((d) => d.code === 'material.tg-replicates-disagree'), JSON.stringify(b.diagnostics));
+  });
+
+  it('does not flag replicate ramps that agree, and keeps the calibration term whole', () => {
+    // Identical ramps: no scatter; the thermometer's 0.5 K is common to both and is not divided by √2.
+    const b = materialResults(MATERIAL_BLOCK(315), [[10, 315], [10, 315]]);
+    const r = b.results.standard_tg;
+    assert.ok(!b.diagnostics.some((d) => d.code === 'material.tg-replicates-disagree'));
+    assert.equal(r.budget!.find((t) => t.source === 'calibration')!.value, 0.5);
+    assert.ok(r.uncertainty! < 0.55, `u ${r.uncertainty}`);
+  });
+});
+
+describe('standard Tg from three cooling rates: ±2u keeps its meaning with one degree of freedom', () => {
+  it('covers the true Tg(10 K/min) at about 95 % over seeded scatter of the ramps', function () {
+    this.timeout(60000);
+    // Tg = a + b·log10 q (model M1, Moynihan et al., J. Am. Ceram. Soc. 59, 12 (1976)) with
+    // 1.5 K of ramp-to-ramp scatter; three rates leave n − 2 = 1 degree of freedom, where the
+    // 95 % Student t factor is 12.71 (any table of t; GUM, JCGM 100:2008, table G.2).
+    let seed = 7;
+    const uniform = () => ((seed = (Math.imul(seed, 1103515245) + 12345) >>> 0) / 4294967296);
+    const normal = () => Math.sqrt(-2 * Math.log(uniform() + 1e-12)) * Math.cos(2 * Math.PI * uniform());
+    const truth = 315;
+    const rates: Array<[number, number]> = [[0.3, truth - 3.9 * Math.log10(10 / 0.3)], [2, truth - 3.9 * Math.log10(5)], [30, truth + 3.9 * Math.log10(3)]];
+    let covered = 0;
+    const runs = 120;
+    for (let i = 0; i < runs; i++) {
+      const nb = new Notebook(new InMemoryHost());
+      nb.setFile('m.md', MATERIAL_BLOCK(315));
+      // An exact thermometer (no calibration term), so that only the scatter is tested.
+      const ramps = rates.map(([q, tg], k) => DEPOSITION_BLOCK(`D-${k}`, 270) + coolingRamp(`R-${k}`, `D-${k}`, q, tg + 1.5 * normal()).replace('direction: cooling\n', 'direction: cooling\ntemperature_calibration: 0 K\n'));
+      nb.setFile('d.md', ramps.join('\n'));
+      const r = toJsonReport(nb.analyze(['m.md'])).files[0].blocks[0].results.standard_tg;
+      if (Math.abs(r.value - truth) <= 1.96 * r.uncertainty!) covered++;
+      assert.ok(Math.abs(r.interval![1] - r.value - 1.96 * r.uncertainty!) < 1e-9, 'the interval is ±1.96u');
+    }
+    // Exactly 95 % in expectation; 120 runs give a binomial spread of ±2 %.
+    assert.ok(covered / runs >= 0.89 && covered / runs <= 1, `coverage ${covered}/${runs}`);
+  });
 });

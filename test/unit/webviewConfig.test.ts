@@ -4,6 +4,7 @@ import * as path from 'node:path';
 import * as vega from 'vega';
 import { expressionInterpreter } from 'vega-interpreter';
 import { figureSpec, toVega } from '../../extension/core/charts/index.js';
+import { ROLE, SURFACE, TYPE } from '../../extension/core/charts/tokens.js';
 import type { FigureData } from '../../extension/core/index.js';
 import { chartColours, parseColour, themedSpec, themeKindOf, vegaConfig, type ThemeVariables } from '../../extension/webview/chartConfig.js';
 import { readMessage } from '../../extension/webview/messages.js';
@@ -17,11 +18,14 @@ const DARK_VARS: ThemeVariables = {
   '--vscode-panel-border': '#bd93f9',
 };
 
+/** A high-contrast editor's variables (dark background). */
+const HC_VARS: ThemeVariables = { ...DARK_VARS };
+
 const FIGURE: FigureData = {
   xTitle: 'T / K',
   yTitle: 'h / nm',
   series: [
-    { name: 'as deposited', role: 'data', points: [[300, 400], [310, 400.4], [320, 400.8], [330, 402], [340, 404]] },
+    { name: 'as deposited', role: 'data', meaning: 'as-deposited', points: [[300, 400], [310, 400.4], [320, 400.8], [330, 402], [340, 404]] },
     { name: 'glass line', role: 'line', points: [[300, 400], [330, 401.2]] },
   ],
   markers: [{ label: 'Tf', x: 325 }],
@@ -68,49 +72,47 @@ describe('webview chart theme', () => {
   });
 
   describe('chartColours', () => {
-    it('takes background, foreground and font from the editor variables', () => {
-      const c = chartColours(DARK_VARS, 'dark', false);
-      assert.equal(c.background, '#282a36');
-      assert.equal(c.foreground, '#f8f8f2');
-      assert.equal(c.font, '"Segoe WPC", "Segoe UI", sans-serif');
-      assert.equal(c.fontSize, 14);
+    it('gives light and dark editors Vitrine’s own surfaces and faces from the tokens, whatever their variables', () => {
+      for (const theme of ['light', 'dark'] as const) {
+        const c = chartColours(DARK_VARS, theme, false);
+        assert.equal(c.background, SURFACE[theme].sheet);
+        assert.equal(c.foreground, SURFACE[theme].ink);
+        assert.equal(c.muted, SURFACE[theme].pencil);
+        assert.equal(c.grid, SURFACE[theme].grid);
+        assert.equal(c.font, TYPE.figures);
+        assert.equal(c.titleFont, TYPE.text);
+        assert.equal(c.tokens, theme);
+      }
     });
 
-    it('draws the grid and axes as mixes of foreground into background (14 % and 55 %)', () => {
-      const c = chartColours({ '--vscode-editor-background': '#000000', '--vscode-editor-foreground': '#ffffff' }, 'dark', false);
-      // 0.14 × 255 = 35.7 → 0x24; 0.55 × 255 = 140.25 → 0x8c
-      assert.equal(c.grid, '#242424');
-      assert.equal(c.muted, '#8c8c8c');
-    });
-
-    it('falls back to the kind’s defaults for missing or empty variables', () => {
-      const c = chartColours({ '--vscode-editor-background': '  ', '--vscode-editor-font-size': 'large' }, 'dark', false);
-      assert.equal(c.background, '#1e1e1e');
-      assert.equal(c.foreground, '#d4d4d4');
-      assert.equal(c.font, 'sans-serif');
-      assert.equal(c.fontSize, 13);
-      assert.equal(chartColours({}, 'light', false).background, '#ffffff');
-    });
-
-    it('draws light charts with forceLight whatever the editor shows, keeping its font', () => {
+    it('draws light charts with forceLight whatever the editor shows', () => {
       const c = chartColours(DARK_VARS, 'dark', true);
-      assert.equal(c.background, '#ffffff');
-      assert.equal(c.foreground, '#222222');
-      assert.equal(c.font, DARK_VARS['--vscode-font-family']);
-      assert.equal(chartColours(DARK_VARS, 'high-contrast', true).background, '#ffffff');
+      assert.equal(c.background, SURFACE.light.sheet);
+      assert.equal(c.foreground, SURFACE.light.ink);
+      assert.equal(chartColours(DARK_VARS, 'high-contrast', true).background, SURFACE.light.sheet);
     });
 
-    it('draws a plainer grid (35 %) and full-ink axes in high contrast, the border colour when the colours cannot be read', () => {
-      const c = chartColours({ '--vscode-editor-background': '#000000', '--vscode-editor-foreground': '#ffffff', '--vscode-panel-border': '#6fc3df' }, 'high-contrast', false);
+    it('keeps a high-contrast editor’s background, foreground and font, with a plainer grid (35 %) and full-ink axes', () => {
+      const c = chartColours({ '--vscode-editor-background': '#000000', '--vscode-editor-foreground': '#ffffff', '--vscode-panel-border': '#6fc3df', '--vscode-font-family': 'Mono X' }, 'high-contrast', false);
+      assert.equal(c.background, '#000000');
+      assert.equal(c.foreground, '#ffffff');
+      assert.equal(c.font, 'Mono X');
       // 0.35 × 255 = 89.25 → 0x59
       assert.equal(c.grid, '#595959');
       assert.equal(c.muted, '#ffffff');
+      assert.equal(c.tokens, 'dark');
+      assert.equal(chartColours({ '--vscode-editor-background': '#ffffff', '--vscode-editor-foreground': '#000000' }, 'high-contrast', false).tokens, 'light');
       assert.equal(chartColours({ '--vscode-editor-foreground': 'canvastext', '--vscode-panel-border': '#6fc3df' }, 'high-contrast', false).grid, '#6fc3df');
     });
 
-    it('keeps the font size within 10–20 px', () => {
-      assert.equal(chartColours({ '--vscode-editor-font-size': '6px' }, 'light', false).fontSize, 10);
-      assert.equal(chartColours({ '--vscode-editor-font-size': '28px' }, 'light', false).fontSize, 20);
+    it('falls back to black and white in high contrast for missing or empty variables, and keeps the font size within 10–20 px', () => {
+      const c = chartColours({ '--vscode-editor-background': '  ', '--vscode-editor-font-size': 'large' }, 'high-contrast', false);
+      assert.equal(c.background, '#000000');
+      assert.equal(c.foreground, '#ffffff');
+      assert.equal(c.font, 'sans-serif');
+      assert.equal(c.fontSize, 13);
+      assert.equal(chartColours({ '--vscode-editor-font-size': '6px' }, 'high-contrast', false).fontSize, 10);
+      assert.equal(chartColours({ '--vscode-editor-font-size': '28px' }, 'high-contrast', false).fontSize, 20);
     });
   });
 
@@ -128,7 +130,7 @@ describe('webview chart theme', () => {
 
   describe('vegaConfig', () => {
     it('puts the colours and fonts on the background, axes, legends, titles and text', () => {
-      const c = chartColours(DARK_VARS, 'dark', false);
+      const c = chartColours(HC_VARS, 'high-contrast', false);
       const config = vegaConfig(c);
       assert.equal(config.background, '#282a36');
       assert.equal(config.axis?.labelColor, '#f8f8f2');
@@ -138,48 +140,50 @@ describe('webview chart theme', () => {
       assert.equal(config.title?.color, '#f8f8f2');
       assert.equal(config.style?.['group-title']?.fill, '#f8f8f2');
       assert.equal(config.axis?.labelFontSize, 11);
+      assert.equal(vegaConfig(chartColours({}, 'light', false)).axis?.labelFontSize, TYPE.size.chartLabel);
     });
   });
 
   describe('themedSpec', () => {
-    it('replaces the spec’s background, config colours and marker ink and halo, and keeps its palette', () => {
+    it('in high contrast, replaces the spec’s background, config colours, marker ink and halo with the editor’s', () => {
       const compiled = toVega(figureSpec('ramp R-1', FIGURE, 'dark'));
-      const c = chartColours(DARK_VARS, 'dark', false);
+      const c = chartColours(HC_VARS, 'high-contrast', false);
       const themed = themedSpec(compiled, c)!;
       assert.equal(themed.background, '#282a36');
       const config = themed.config as vega.Config;
       assert.equal(config.style?.['group-title']?.fill, '#f8f8f2');
-      assert.deepEqual(config.range?.category, (compiled.config as vega.Config).range?.category);
       const colours = markColours(themed);
       assert.ok(colours.some((m) => m.type === 'text' && m.colour === '#282a36'), 'halo in the new background');
-      assert.ok(colours.some((m) => m.type === 'rule' && m.colour === '#f8f8f2'), 'marker rule in the new foreground');
-      assert.ok(!colours.some((m) => m.colour === '#1e1e1e' || m.colour === '#d4d4d4'), JSON.stringify(colours));
+      assert.ok(colours.some((m) => m.type === 'text' && m.colour === '#f8f8f2'), 'label ink in the new foreground');
+      assert.ok(!colours.some((m) => m.colour === SURFACE.dark.sheet || m.colour === SURFACE.dark.ink), JSON.stringify(colours));
       assert.equal(themed.title !== undefined, true);
       assert.equal(themedSpec(compiled, c, { dropTitle: true })!.title, undefined);
     });
 
-    it('maps a light spec to dark colours too (ink #444444 and halo #ffffff)', () => {
+    it('maps a light spec to the dark tokens in a dark editor: surfaces and role colours alike', () => {
       const compiled = toVega(figureSpec('ramp R-1', FIGURE, 'light'));
       const colours = markColours(themedSpec(compiled, chartColours(DARK_VARS, 'dark', false))!);
-      assert.ok(!colours.some((m) => m.colour === '#ffffff' || m.colour === '#444444'), JSON.stringify(colours));
+      const lightOnly = new Set([...Object.values(SURFACE.light), ...Object.values(ROLE).map((r) => r.light)].filter((x) => !Object.values(SURFACE.dark).includes(x) && !Object.values(ROLE).some((r) => r.dark === x)));
+      assert.ok(!colours.some((m) => lightOnly.has(m.colour)), JSON.stringify(colours));
+      assert.ok(colours.some((m) => m.colour === ROLE['as-deposited'].dark), 'the as-deposited data in its dark colour');
     });
 
     it('does not change its input, and gives null for something that is not a spec', () => {
       const compiled = toVega(figureSpec('ramp R-1', FIGURE, 'dark'));
       const before = JSON.stringify(compiled);
-      themedSpec(compiled, chartColours(DARK_VARS, 'dark', false));
+      themedSpec(compiled, chartColours(HC_VARS, 'high-contrast', false));
       assert.equal(JSON.stringify(compiled), before);
       assert.equal(themedSpec(null, chartColours({}, 'light', false)), null);
       assert.equal(themedSpec([1, 2], chartColours({}, 'light', false)), null);
     });
 
     it('renders through vega-interpreter (no eval) to an SVG in the editor colours', async () => {
-      const c = chartColours(DARK_VARS, 'dark', false);
+      const c = chartColours(HC_VARS, 'high-contrast', false);
       const svg = await svgOf(themedSpec(toVega(figureSpec('ramp R-1', FIGURE, 'light')), c)!, vegaConfig(c));
       assert.match(svg, /^<svg/);
       assert.ok(svg.includes('#282a36'), 'background');
       assert.ok(svg.includes('#f8f8f2'), 'foreground');
-      assert.ok(!svg.includes('#444444'), 'no light-theme ink left');
+      assert.ok(!svg.includes(SURFACE.light.ink), 'no light-theme ink left');
     });
   });
 
@@ -205,13 +209,14 @@ describe('webview chart theme', () => {
   });
 
   describe('imports', () => {
-    it('takes from the repository only the webview itself and protocol types, and from npm only vega and vega-interpreter', () => {
+    it('takes from the repository only the webview itself, the design tokens and protocol types, and from npm only vega and vega-interpreter', () => {
       const dir = path.join(REPO, 'extension', 'webview');
       for (const name of fs.readdirSync(dir).filter((f) => f.endsWith('.ts'))) {
         const text = fs.readFileSync(path.join(dir, name), 'utf8');
         for (const m of text.matchAll(/^\s*(import|export)\s+(type\s+)?[^;]*?from\s+'([^']+)'/gm)) {
           const [, , typeOnly, from] = m;
-          const ok = from.startsWith('./') || from === 'vega' || from === 'vega-interpreter' || (from.startsWith('../protocol/') && typeOnly !== undefined);
+          // The design tokens are plain data, shared so that the preview draws Vitrine's look.
+          const ok = from.startsWith('./') || from === 'vega' || from === 'vega-interpreter' || from === '../core/charts/tokens.js' || (from.startsWith('../protocol/') && typeOnly !== undefined);
           assert.ok(ok, `${name} imports ${typeOnly ? 'type ' : ''}'${from}'`);
         }
       }

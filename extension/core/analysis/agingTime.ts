@@ -5,7 +5,8 @@
  * of two named methods, always flagged as an extrapolation:
  * 1. VFT extrapolation: τα(Tf) = 10^(A + B/(Tf − T0)) s;
  * 2. constant slope at Tg: log10 τ = 2 + m·(Tg/Tf − 1).
- * The value is the geometric mean; `interval` holds the two estimates.
+ * `interval` holds the two estimates (the bracket, printed first: catalogue `bracket`); the value
+ * is their geometric mean, which says nothing the bracket does not.
  *
  * Policy: without a VFT law (and Tg, m) no result.
  */
@@ -29,7 +30,14 @@ export function equivalentAgingTime(tf: number, vft: VftParameters, tgRef?: numb
   const lo = Math.pow(10, Math.min(...logs));
   const hi = Math.pow(10, Math.max(...logs));
   const value = Math.pow(10, (logs[0] + logs[1]) / 2);
-  return result(value, 's', `bracket of VFT extrapolation τα(Tf) (${Math.pow(10, logVft).toExponential(1)} s) and constant slope at Tg, 2 + m(Tg/Tf − 1) (${Math.pow(10, logSlope).toExponential(1)} s); geometric mean; an extrapolation`, undefined, [lo, hi]);
+  const decades = Math.log10(hi / lo);
+  return result(
+    value,
+    's',
+    `bracket [${lo.toExponential(1)}, ${hi.toExponential(1)}] s (${decades.toFixed(1)} decades) between VFT extrapolation τα(Tf) (${Math.pow(10, logVft).toExponential(1)} s) and constant slope at Tg, log τ = 2 + m(Tg/Tf − 1) (${Math.pow(10, logSlope).toExponential(1)} s); the value is only their geometric mean; an extrapolation`,
+    undefined,
+    [lo, hi],
+  );
 }
 
 /** Adds `equivalent_aging_time` for a block's fictive temperature, from its material's VFT law. */

@@ -5,6 +5,7 @@
 import type { Diagnostic } from '../model/diagnostic.js';
 import type { ParsedBlock } from '../block/parseBlock.js';
 import type { FigureData } from '../model/figure.js';
+import type { Quantity } from '../model/quantity.js';
 import type { Results } from '../model/result.js';
 
 
@@ -31,6 +32,11 @@ export interface Analysis {
   readonly results: Results;
   readonly diagnostics: readonly Diagnostic[];
   readonly figure?: FigureData;
+  /**
+   * Quantities the analysis resolved from other blocks (a substrate temperature written as
+   * `0.85 Tg`), by pointer, in canonical units: reported beside the block's own quantities.
+   */
+  readonly quantities?: Readonly<Record<string, Quantity>>;
 }
 
 export type Analyzer = (block: ParsedBlock, ctx: AnalysisContext) => Analysis;

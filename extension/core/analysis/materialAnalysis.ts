@@ -9,8 +9,9 @@ import { at, type Diagnostic } from '../model/diagnostic.js';
 import { messages } from '../model/messages.js';
 import type { ParsedBlock } from '../block/parseBlock.js';
 import { extent } from '../numeric/extent.js';
-import { result, type ResultValue } from '../model/result.js';
+import { budgeted, type ResultValue } from '../model/result.js';
 import type { Analysis, AnalysisContext } from './context.js';
+import { relaxationFit } from './relaxationAnalysis.js';
 import { standardTg } from './standardTg.js';
 import { vftDerivedUncertainty, vftFragility, vftTg, type VftParameters } from './vft.js';
 
@@ -30,17 +31,28 @@ export function statedTg(block: ParsedBlock): { value: number; uncertainty?: num
   return q ? { value: q.value, uncertainty: q.uncertainty } : null;
 }
 
-/** The VFT parameters of a material: stated on the block, else fitted to its relaxation data. */
-export function materialVft(block: ParsedBlock, ctx: AnalysisContext): { p: VftParameters; source: string; range?: [number, number] } | null {
+/**
+ * The VFT parameters of a material: stated on the block, else fitted to its relaxation data; with
+ * the covariance of (A, B, T0) where known (the ± written on B and T0, taken as uncorrelated, or
+ * the fit's covariance).
+ */
+export function materialVft(block: ParsedBlock, ctx: AnalysisContext): { p: VftParameters; source: string; range?: [number, number]; cov?: number[][] } | null {
   const stated = statedVft(block);
-  if (stated) return { p: stated.p, source: 'stated' };
+  if (stated) {
+    const { sd } = stated;
+    const cov = sd.some((x) => x > 0) ? [0, 1, 2].map((i) => [0, 1, 2].map((j) => (i === j ? sd[i] * sd[i] : 0))) : undefined;
+    return { p: stated.p, source: 'stated', ...(cov ? { cov } : {}) };
+  }
   if (block.id === null) return null;
   for (const relax of ctx.referrers('relaxation', 'material', block.id)) {
     const r = ctx.resultsOf(relax);
     if (r.vft_log10_tau0 && r.vft_B && r.vft_T0) {
       const T = relax.table?.byRole.get('temperature')?.values;
       const range: [number, number] | undefined = T && T.length > 0 ? extent(T) : undefined;
-      return { p: { log10Tau0: r.vft_log10_tau0.value, B: r.vft_B.value, T0: r.vft_T0.value }, source: `fit of relaxation block ${relax.id ?? ''}`, range };
+      // The full covariance: A, B and T0 are strongly correlated, so their separate uncertainties would overstate u(log τ).
+      const fit = relaxationFit(relax)?.fit;
+      const same = fit && fit.covariance && Math.abs(fit.T0 - r.vft_T0.value) <= 1e-9 * Math.abs(fit.T0) + 1e-12;
+      return { p: { log10Tau0: r.vft_log10_tau0.value, B: r.vft_B.value, T0: r.vft_T0.value }, source: `fit of relaxation block ${relax.id ?? ''}`, range, ...(same ? { cov: fit.covariance! } : {}) };
     }
   }
   return null;
@@ -65,8 +77,9 @@ export function analyzeMaterial(block: ParsedBlock, ctx: AnalysisContext): Analy
         [0, 0, sd[2] ** 2],
       ];
       const u = sd.some((s) => s > 0) ? vftDerivedUncertainty(p, cov) : undefined;
-      results.tg_vft = result(tg, 'K', 'VFT parameters as stated: T0 + B/(2 − log10 τ0)', u?.tg);
-      results.fragility = result(m, '1', 'VFT parameters as stated: B·Tg/(Tg − T0)²', u?.m);
+      const note = 'the ± written on B and T0, delta method, taken as uncorrelated';
+      results.tg_vft = budgeted(tg, 'K', 'VFT parameters as stated: T0 + B/(2 − log10 τ0)', [{ source: 'stated parameters', value: u?.tg ?? NaN, note }]);
+      results.fragility = budgeted(m, '1', 'VFT parameters as stated: B·Tg/(Tg − T0)²', [{ source: 'stated parameters', value: u?.m ?? NaN, note }]);
       const stated = statedTg(block);
       if (stated && Math.abs(stated.value - tg) > 10) {
         diagnostics.push(at(messages.vftTgDisagrees(tg, stated.value), block.spanOf('/tg')));

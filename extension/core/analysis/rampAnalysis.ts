@@ -1,21 +1,28 @@
 /**
  * Ramp analysis: thickness (or specific volume) against temperature.
  *
- * 1. The scan is split into heating, cooling and isothermal segments (segments.ts).
- * 2. Tg from the longest cooling segment: the continuous two-line hinge fit with an optimised
- *    breakpoint and its profile-likelihood interval (hingeFit.ts, Method A); with `windows.glass`
- *    and `windows.liquid` set, the intersection of two window fits instead (Method B).
- *    α = (1/h)(dh/dT) of each line at Tg.
- * 3. When the scan starts with heating, that segment is taken as the first heating of the
- *    as-deposited film: the as-deposited (VD) line is fitted from the start until the data leave
- *    it (3 consecutive points beyond 4σ) or over `windows.deposited`; the supercooled-liquid and
- *    liquid-cooled lines come from the cooling segment, 5 K away from its Tg. Then
+ * 1. Exact repeats of a row are left out (a warning says so), the scan is split into heating,
+ *    cooling and isothermal segments (segments.ts).
+ * 2. Tg, α_g and α_l from the longest cooling segment (coolingTg.ts): the hinge fit (Method A)
+ *    where the data are two straight lines, two windows iterated from the fragility-based gap
+ *    (Method B) where the transition is broad, or the windows written in `windows:`.
+ * 3. When the scan starts with heating, that segment is the first heating of the as-deposited
+ *    film: the as-deposited (VD) line is fitted from the start until the data leave it (3
+ *    consecutive points beyond 4σ), then ended below the extrapolated onset by the width of the
+ *    transformation and refitted, or fitted over `windows.deposited`; the supercooled-liquid
+ *    (SCL) and liquid-cooled (LC) lines are those of the cooling construction. Then
  *    - `tonset`: the VD line meets the line through the points with 0.2 ≤ x ≤ 0.8, where
  *      x = (h − ĥ_VD)/(ĥ_SCL − ĥ_VD) (the thickness analogue of the extrapolated onset);
- *    - `tfictive`: the VD line meets the SCL line;
+ *    - `tfictive`: the VD line meets the SCL line (Kearns et al., J. Phys. Chem. B 112, 4934 (2008));
  *    - `density_gain`: 100·(ĥ_LC/ĥ_VD − 1) at the reference temperature (default the film's
- *      substrate temperature), since ρ ∝ 1/h at fixed area and mass.
- *    Uncertainties of intersections by the delta method.
+ *      substrate temperature), since ρ ∝ 1/h at fixed area and mass (Dalal & Ediger,
+ *      J. Phys. Chem. Lett. 3, 1229 (2012)).
+ * 4. Every figure carries an uncertainty budget (GUM, JCGM 100:2008): the statistical term of its
+ *    fit (delta method for intersections), the window term (the figure recomputed with the gap
+ *    scaled by 1.5 and by 0.7, the as-deposited window ended 5 K lower and 5 K trimmed from both
+ *    ends of the cooling segment; the largest change taken as the half-width of a rectangular
+ *    distribution, /√3), and for temperatures the calibration of the stage thermometer
+ *    (`temperature_calibration`, default 0.5 K standard uncertainty).
  *
  * Policy: any missing piece gives a diagnostic and no result for that figure; the other figures
  * are still computed. "No transition detected" is reported, not thrown.
@@ -24,24 +31,29 @@ import { at, type Diagnostic, type Message } from '../model/diagnostic.js';
 import { messages } from '../model/messages.js';
 import type { ParsedBlock } from '../block/parseBlock.js';
 import { t95 } from '../numeric/distributions.js';
-import { fitHinge } from '../numeric/hingeFit.js';
 import { firstAbruptDrop } from '../numeric/abruptDrop.js';
 import { fitLine, fitLineWhere, intersect, predict, predictVariance, type LineFit } from '../numeric/lineFit.js';
-import { result, type ResultValue } from '../model/result.js';
+import { budgeted, type ResultValue, type UncertaintyTerm } from '../model/result.js';
 import type { Span } from '../text/positions.js';
 import { linePoints, thinIndices } from '../numeric/thin.js';
 import type { Analysis, AnalysisContext } from './context.js';
 import type { FigureData, FigureSeries } from '../model/figure.js';
 import { addAging } from './agingTime.js';
 import { filmOf, materialOf, metadataWindow as window } from './blockLinks.js';
-import { statedTg } from './materialAnalysis.js';
+import { materialVft, statedTg } from './materialAnalysis.js';
+import { vftFragility } from './vft.js';
 import { segmentScan, type Segment } from './segments.js';
+import { coolingTg } from './coolingTg.js';
+import { substrateTemperatureOf } from './substrateTemperature.js';
 
 /** Rows below which no figure can be computed: the first heating needs 10, Tg 8 on each side of it. */
 const MIN_RAMP_ROWS = 10;
 
-/** Distance from Tg of the glass and liquid lines used for extrapolation, K. */
-const LINE_GAP = 5;
+/** Standard uncertainty of the stage thermometer when `temperature_calibration` is not written, K. */
+export const DEFAULT_TEMPERATURE_CALIBRATION = 0.5;
+
+/** How far outside the measured glass lines a density gain may be evaluated, K. */
+const DENSITY_EXTRAPOLATION_LIMIT = 20;
 
 interface Curve {
   readonly T: Float64Array;
@@ -57,6 +69,12 @@ function fitWhere(c: Curve, keep: (T: number) => boolean): LineFit | null {
   return fitLineWhere(c.T, c.h, (i) => keep(c.T[i]));
 }
 
+function countWhere(T: ArrayLike<number>, keep: (T: number) => boolean): number {
+  let n = 0;
+  for (let i = 0; i < T.length; i++) if (keep(T[i])) n++;
+  return n;
+}
+
 export interface RampLines {
   readonly vd?: LineFit;
   readonly scl?: LineFit;
@@ -67,8 +85,8 @@ export interface RampLines {
 
 /** Choices an analysis makes by itself; varied to measure how much the figures depend on them. */
 interface RampChoices {
-  /** Distance of the glass and liquid lines from Tg, K (default 5, shrunk for sparse data). */
-  readonly gap?: number;
+  /** Scale of the gap between the lines and Tg (default 1). */
+  readonly gapScale?: number;
   /** Move the end of the automatic as-deposited window this many kelvin lower. */
   readonly vdTrim?: number;
   /** Leave out this many kelvin at both ends of the cooling segment. */
@@ -77,32 +95,68 @@ interface RampChoices {
   readonly figuresOnly?: boolean;
 }
 
-const VARIANTS: readonly RampChoices[] = [{ gap: 3 }, { gap: 8 }, { vdTrim: 5 }, { coolTrim: 5 }];
+const VARIANTS: readonly RampChoices[] = [{ gapScale: 1.5 }, { gapScale: 0.7 }, { vdTrim: 5 }, { coolTrim: 5 }];
+
+/** The figures whose window sensitivity enters their budget. */
+const SENSITIVE = ['tg', 'alpha_glass', 'alpha_liquid', 'tonset', 'tfictive', 'density_gain'] as const;
 
 /**
- * The ramp analysis, with the sensitivity of Tg, Tonset, Tf and the density gain to the choices
- * of windows (window edges moved by 5 K, the spread reported): the largest change
- * over the variants is named in the method, beside the statistical uncertainty.
+ * The ramp analysis, with each figure's budget completed by its window term: the figure is
+ * recomputed under each variant of the analysis's own choices; each change less the part the
+ * noise explains (nested fits: the variance of the difference is that of the less efficient fit
+ * minus that of the more efficient one, Hausman, Econometrica 46, 1251 (1978)), and the largest
+ * is taken as the half-width of a rectangular distribution (GUM §4.3.7), u = a/√3.
  */
 export function analyzeRamp(block: ParsedBlock, ctx: AnalysisContext): Analysis {
   const nominal = rampDetails(block, ctx).analysis;
-  const names = ['tg', 'tonset', 'tfictive', 'density_gain'].filter((n) => nominal.results[n]);
+  const names = SENSITIVE.filter((n) => nominal.results[n]);
   if (names.length === 0) return nominal;
   const spread = new Map<string, number>();
   for (const choice of VARIANTS) {
     ctx.checkCancelled();
     const r = rampDetails(block, ctx, { ...choice, figuresOnly: true }).analysis.results;
     for (const n of names) {
-      const v = r[n]?.value;
-      if (v !== undefined) spread.set(n, Math.max(spread.get(n) ?? 0, Math.abs(v - nominal.results[n].value)));
+      const v = r[n];
+      if (v === undefined) continue;
+      const u0 = statistical(nominal.results[n]);
+      const u1 = statistical(v);
+      const change = Math.sqrt(Math.max(0, (v.value - nominal.results[n].value) ** 2 - Math.abs(u1 * u1 - u0 * u0)));
+      spread.set(n, Math.max(spread.get(n) ?? 0, change));
     }
   }
-  const results = { ...nominal.results };
-  for (const [n, s] of spread) {
+  const results: Record<string, ResultValue> = { ...nominal.results };
+  for (const n of names) {
     const r = results[n];
-    results[n] = { ...r, method: `${r.method}; window sensitivity ±${Number(s.toPrecision(2))} ${r.unit === '1' ? '' : r.unit}`.trimEnd() };
+    const a = spread.get(n) ?? 0;
+    const term: UncertaintyTerm = { source: 'window', value: a / Math.sqrt(3), note: `largest change over ${VARIANTS.length} window variants (gap ×1.5 and ×0.7, as-deposited window 5 K shorter, cooling span trimmed 5 K at both ends) beyond their noise, ${fmtTerm(a, r.unit)}, /√3` };
+    results[n] = withTerm(r, term);
   }
   return { ...nominal, results };
+}
+
+/** The statistical term of a figure's budget (0 when it has none). */
+function statistical(r: ResultValue): number {
+  return r.budget?.find((t) => t.source === 'statistical')?.value ?? 0;
+}
+
+function fmtTerm(value: number, unit: string): string {
+  return `${Number(value.toPrecision(2))}${unit === '1' ? '' : ` ${unit}`}`;
+}
+
+/** The figure with one more budget term, and its 95 % interval widened to ±2u (GUM §6.3, k = 2). */
+function withTerm(r: ResultValue, term: UncertaintyTerm): ResultValue {
+  const terms = [...(r.budget ?? []), term];
+  const b = budgeted(r.value, r.unit, r.method, terms);
+  const u = b.uncertainty;
+  return u !== undefined && r.interval ? { ...b, interval: [r.value - 2 * u, r.value + 2 * u] } : b;
+}
+
+/** The material's fragility, from its stated VFT law or its relaxation data. */
+function fragilityOf(block: ParsedBlock, ctx: AnalysisContext): number | null {
+  const material = materialOf(block, ctx);
+  const vft = material ? materialVft(material, ctx) : null;
+  const m = vft ? vftFragility(vft.p) : NaN;
+  return Number.isFinite(m) && m > 0 ? m : null;
 }
 
 /** The analysis and the fitted lines (the charts draw them). */
@@ -124,22 +178,47 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext, choices: R
     note(messages.tableTooFewRows('ramp', table.rowCount, MIN_RAMP_ROWS, 'for any figure (a first heating needs 10, and Tg 8 on each side of the transition while cooling)'), block.header.kindSpan);
     return empty;
   }
-  const curve: Curve = { T: Tcol.values, h: hcol.values };
-  const time = table.byRole.get('time')?.values ?? null;
+  const what = hcol.role === 'volume' ? 'specific volume' : 'thickness';
+  for (let i = 0; i < hcol.values.length; i++) {
+    if (!(hcol.values[i] > 0)) {
+      note(messages.rampThicknessNotPositive(hcol.values[i], what), block.rowSpan(i));
+      return empty;
+    }
+  }
+  const timeCol = table.byRole.get('time')?.values ?? null;
+  const kept = keptRows(Tcol.values, hcol.values, timeCol);
+  if (kept.dropped > 0 && !choices.figuresOnly) note(messages.rampDuplicateRows(kept.dropped), block.rowSpan(kept.firstDropped));
+  const rows = kept.rows;
+  const pick = (v: Float64Array): Float64Array => (rows ? Float64Array.from(rows, (r) => v[r]) : v);
+  const curve: Curve = { T: pick(Tcol.values), h: pick(hcol.values) };
+  const time = timeCol ? pick(timeCol) : null;
+  const rowSpan = (i: number): Span => block.rowSpan(rows ? rows[i] : i);
   const nominal = block.quantities.get('/rate')?.value ?? null;
   const segments = segmentScan(curve.T, time, nominal);
   const lines: { -readonly [K in keyof RampLines]: RampLines[K] } = { segments };
 
+  if (segments.every((s) => s.direction === 'isothermal')) {
+    note(messages.rampNoTemperatureChange(), rowSpan(0));
+    return { analysis: { results, diagnostics }, lines };
+  }
+  const calibration = block.quantities.get('/temperature_calibration');
+  const uCal = calibration ? Math.abs(calibration.value) : DEFAULT_TEMPERATURE_CALIBRATION;
+  const calTerm: UncertaintyTerm = {
+    source: 'calibration',
+    value: uCal,
+    note: calibration ? `stage thermometer, temperature_calibration as written` : `stage thermometer, ${DEFAULT_TEMPERATURE_CALIBRATION} K assumed (write temperature_calibration to change it)`,
+  };
+
   const backSteps = time ? [] : segments.filter((s) => s.backStep !== undefined);
-  if (backSteps.length > 0) note(messages.rampMixedDirection(backSteps[0].direction, backSteps.length), block.rowSpan(backSteps[0].backStep!));
+  if (backSteps.length > 0) note(messages.rampMixedDirection(backSteps[0].direction, backSteps.length), rowSpan(backSteps[0].backStep!));
   if (nominal) {
     const off = segments.find((s) => s.direction !== 'isothermal' && s.measuredRate !== undefined && Math.abs(Math.abs(s.measuredRate) - nominal) > 0.1 * nominal);
     if (off?.measuredRate !== undefined) note(messages.rampRateMismatch(Math.abs(off.measuredRate), nominal), block.spanOf('/rate'));
   }
 
-  if (!choices.figuresOnly) scanChecks(block, curve, time, segments, note);
+  if (!choices.figuresOnly) scanChecks(block, curve, time, segments, note, rowSpan);
   const stated = block.metadata.data.direction;
-  if (!choices.figuresOnly && typeof stated === 'string' && table.rowCount >= 10) {
+  if (!choices.figuresOnly && typeof stated === 'string') {
     const has = (d: string): boolean => segments.some((s) => s.direction === d && s.end - s.start >= 5);
     const found = has('heating') && has('cooling') ? 'heating and cooling' : has('heating') ? 'heating only' : has('cooling') ? 'cooling only' : 'no temperature change';
     const ok = stated === 'cycle' ? has('heating') && has('cooling') : has(stated) && !has(stated === 'heating' ? 'cooling' : 'heating');
@@ -149,81 +228,106 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext, choices: R
   // Tg from the longest clean cooling segment.
   const coolings = segments.filter((s) => s.direction === 'cooling' && (time || s.backStep === undefined));
   const cooling = coolings.sort((a, b) => b.end - b.start - (a.end - a.start))[0];
-  let tg: number | null = null;
+  const glassW = window(block, 'glass');
+  const liquidW = window(block, 'liquid');
+  const depositedW = window(block, 'deposited');
+  for (const [name, w] of [
+    ['glass', glassW],
+    ['liquid', liquidW],
+    ['deposited', depositedW],
+  ] as const) {
+    const n = w ? countWhere(curve.T, (T) => T >= w[0] && T <= w[1]) : Infinity;
+    if (w && n < 3) {
+      if (!choices.figuresOnly) note(messages.rampEmptyWindow(name, n, w[0], w[1]), block.spanOf(`/windows/${name}`));
+      return { analysis: { results, diagnostics }, lines };
+    }
+  }
   if (!cooling) {
-    if (table.rowCount >= 10) note(messages.rampNoCooling(), block.header.kindSpan);
+    note(messages.rampNoCooling(), block.header.kindSpan);
   } else {
     let c = slice(curve, cooling);
+    let lowest = cooling.start;
+    let highest = cooling.start;
+    for (let i = cooling.start; i < cooling.end; i++) {
+      if (curve.T[i] < curve.T[lowest]) lowest = i;
+      if (curve.T[i] > curve.T[highest]) highest = i;
+    }
     if (choices.coolTrim) {
-      let lo = Infinity;
-      let hi = -Infinity;
-      for (const T of c.T) {
-        lo = Math.min(lo, T);
-        hi = Math.max(hi, T);
-      }
+      const lo = curve.T[lowest] + choices.coolTrim;
+      const hi = curve.T[highest] - choices.coolTrim;
       const keep: number[] = [];
       c.T.forEach((T, i) => {
-        if (T >= lo + choices.coolTrim! && T <= hi - choices.coolTrim!) keep.push(i);
+        if (T >= lo && T <= hi) keep.push(i);
       });
       c = { T: Float64Array.from(keep, (i) => c.T[i]), h: Float64Array.from(keep, (i) => c.h[i]) };
     }
-    const glassW = window(block, 'glass');
-    const liquidW = window(block, 'liquid');
-    if (glassW && liquidW) {
-      const g = fitWhere(c, (T) => T >= glassW[0] && T <= glassW[1]);
-      const l = fitWhere(c, (T) => T >= liquidW[0] && T <= liquidW[1]);
-      const x = g && l ? intersect(g, l, t95) : null;
-      if (!g || !l || !x) {
-        note(messages.rampTooFewPoints('cooling segment'), block.spanOf('/windows'));
-      } else {
-        tg = x.x;
-        const h = predict(g, x.x);
-        const k = t95(Math.max(1, g.n + l.n - 4));
-        results.tg = result(x.x, 'K', `two windows (glass ${glassW[0]}–${glassW[1]} K, liquid ${liquidW[0]}–${liquidW[1]} K), intersection; cooling segment`, x.se, [x.x - k * x.se, x.x + k * x.se]);
-        results.alpha_glass = result(g.slope / h, '1/K', 'slope of the glass window line / h at Tg', Math.sqrt(g.varSlope) / h);
-        results.alpha_liquid = result(l.slope / h, '1/K', 'slope of the liquid window line / h at Tg', Math.sqrt(l.varSlope) / h);
-        if (!x.slopesDiffer) note(messages.rampSlopesEqual('Tg'), block.spanOf('/windows'));
-      }
+    const fig = coolingTg({ T: c.T, h: c.h, glassWindow: glassW, liquidWindow: liquidW, fragility: fragilityOf(block, ctx), gapScale: choices.gapScale });
+    const place = (where: 'segment' | 'low' | 'high' | 'windows'): Span =>
+      where === 'windows' ? block.spanOf('/windows') : rowSpan(where === 'low' ? lowest : where === 'high' ? highest : cooling.start);
+    if (!fig.ok) {
+      note(fig.message, place(fig.at));
     } else {
-      const fit = fitHinge(c.T, c.h);
-      const where = block.rowSpan(cooling.start);
-      if (!fit.ok) {
-        note(messages.rampTooFewPoints('cooling segment'), where);
-      } else if (fit.fit.pTransition > 0.05) {
-        note(messages.rampNoTransition(fit.fit.pTransition), where);
-      } else if (fit.fit.atEdge) {
-        note(messages.rampTgAtEdge(), where);
-      } else {
-        const f = fit.fit;
-        tg = f.breakpoint;
-        const u = (f.interval[1] - f.interval[0]) / (2 * t95(Math.max(1, f.n - 4)));
-        const rateText = nominal ? ` at ${nominal} K/min` : '';
-        results.tg = result(f.breakpoint, 'K', `hinge fit (continuous two-line, optimised breakpoint), cooling segment${rateText}; 95 % profile-likelihood interval`, u, f.interval);
-        results.alpha_glass = result(f.slopeLow / f.hAtBreak, '1/K', 'glass slope of the hinge fit / h at Tg', f.seSlopeLow / f.hAtBreak);
-        results.alpha_liquid = result(f.slopeHigh / f.hAtBreak, '1/K', 'liquid slope of the hinge fit / h at Tg', f.seSlopeHigh / f.hAtBreak);
-        const ratio = f.slopeHigh / f.slopeLow;
-        if (!(f.slopeHigh > f.slopeLow) || (f.slopeLow > 0 && ratio < 1.3)) note(messages.rampWeakTransition(ratio), where);
-        if (f.durbinWatson < 1) note(messages.rampCurvature(f.durbinWatson), where);
-      }
-    }
-    if (tg !== null) {
+      for (const w of fig.warnings) note(w.message, place(w.at));
+      const rateText = nominal ? ` at ${nominal} K/min` : '';
+      const modelNote = 'hinge against the two-window construction, difference beyond its noise, /√3';
+      results.tg = budgeted(
+        fig.tg,
+        'K',
+        `${fig.label}; cooling segment${rateText}`,
+        [{ source: 'statistical', value: fig.uTg, note: fig.construction === 'hinge' ? 'profile-likelihood interval / (2·t₀.₉₇₅)' : 'delta method at the intersection of the two lines' }, { source: 'model', value: fig.model.tg, note: modelNote }, calTerm],
+        fig.interval,
+      );
+      const alpha = (slope: number, u: number, model: number, line: string): ResultValue =>
+        budgeted(slope / fig.hAtTg, '1/K', `out-of-plane (supported film): slope of the ${line} line / h at Tg; ${fig.lineLabel}`, [
+          { source: 'statistical', value: u / fig.hAtTg, note: 'standard error of the slope / h at Tg' },
+          { source: 'model', value: model / fig.hAtTg, note: modelNote },
+        ]);
+      results.alpha_glass = alpha(fig.slopeGlass, fig.uSlopeGlass, fig.model.slopeGlass, 'glass');
+      results.alpha_liquid = alpha(fig.slopeLiquid, fig.uSlopeLiquid, fig.model.slopeLiquid, 'liquid');
       const material = materialOf(block, ctx);
       const ref = material ? statedTg(material) : null;
-      if (ref && Math.abs(tg - ref.value) > 10) note(messages.rampTgFar(tg, ref.value, nominal ?? NaN), block.rowSpan(cooling.start));
-      const gap = choices.gap ?? chooseGap(c, tg);
-      lines.lc = fitWhere(c, glassW ? (T) => T >= glassW[0] && T <= glassW[1] : (T) => T <= tg! - gap) ?? undefined;
-      lines.scl = fitWhere(c, liquidW ? (T) => T >= liquidW[0] && T <= liquidW[1] : (T) => T >= tg! + gap) ?? undefined;
+      if (ref && Math.abs(fig.tg - ref.value) > 10) note(messages.rampTgFar(fig.tg, ref.value, nominal ?? NaN), rowSpan(cooling.start));
+      lines.lc = fig.lc ?? undefined;
+      lines.scl = fig.scl ?? undefined;
     }
   }
 
   // First heating of the as-deposited film.
   const first = segments[0];
   if (first && first.direction === 'heating' && first.end - first.start >= 10) {
-    firstHeating(block, ctx, slice(curve, first), first, lines, results, note, choices.vdTrim ?? 0);
+    const rowOf = (i: number): Span => rowSpan(first.start + i);
+    firstHeating(block, ctx, slice(curve, first), depositedW, rowOf, lines, results, note, choices.vdTrim ?? 0, calTerm);
   }
   const quantity = hcol.role === 'volume' ? `V / (${hcol.unit})` : 'h / nm';
   if (choices.figuresOnly) return { analysis: { results, diagnostics }, lines };
-  return { analysis: { results, diagnostics, figure: rampFigure(curve, lines, results, quantity) }, lines };
+  const figure = rampFigure(curve, lines, results, quantity);
+  return { analysis: { results, diagnostics, figure: hcol.role === 'volume' ? { ...figure, measured: 'volume' } : figure }, lines };
+}
+
+/**
+ * Rows kept after leaving out exact repeats: with a time column, a row whose (t, T, h) equals the
+ * last kept row of the same time; without, a row equal to the row before it (a heating and a
+ * cooling pass may read the same T and h). `rows` is null when nothing is left out.
+ */
+function keptRows(T: Float64Array, h: Float64Array, t: Float64Array | null): { rows: Int32Array | null; dropped: number; firstDropped: number } {
+  const n = T.length;
+  const keep = new Int32Array(n);
+  let m = 0;
+  let firstDropped = -1;
+  // The last kept row at each time: a repeat has the same time, so only that row is compared.
+  const atTime = new Map<number, number>();
+  for (let i = 0; i < n; i++) {
+    let repeat: boolean;
+    if (t) {
+      const j = atTime.get(t[i]);
+      repeat = j !== undefined && T[j] === T[i] && h[j] === h[i];
+      if (!repeat) atTime.set(t[i], i);
+    } else repeat = i > 0 && T[i] === T[i - 1] && h[i] === h[i - 1];
+    if (repeat) {
+      if (firstDropped < 0) firstDropped = i;
+    } else keep[m++] = i;
+  }
+  return m === n ? { rows: null, dropped: 0, firstDropped } : { rows: keep.slice(0, m), dropped: n - m, firstDropped };
 }
 
 /** The ramp chart: the scan by segment, the fitted lines, and Tg, Tonset, Tf marked. */
@@ -233,7 +337,9 @@ function rampFigure(curve: Curve, lines: RampLines, results: Record<string, Resu
     const idx: number[] = [];
     for (const s of lines.segments) if (s.direction === dir) for (let i = s.start; i < s.end; i++) idx.push(i);
     if (idx.length === 0) continue;
-    series.push({ name: dir, role: 'data', points: thinIndices(idx.length).map((k) => [curve.T[idx[k]], curve.h[idx[k]]]) });
+    // The first heating is the as-deposited film's; cooling makes the liquid-cooled glass.
+    const meaning = dir === 'heating' ? 'as-deposited' : dir === 'cooling' ? 'liquid-cooled' : 'data';
+    series.push({ name: dir, role: 'data', meaning, points: thinIndices(idx.length).map((k) => [curve.T[idx[k]], curve.h[idx[k]]]) });
   }
   let tmin = Infinity;
   let tmax = -Infinity;
@@ -244,10 +350,10 @@ function rampFigure(curve: Curve, lines: RampLines, results: Record<string, Resu
   const tg = results.tg?.value;
   const tf = results.tfictive?.value;
   const on = results.tonset?.value;
-  if (lines.lc) series.push({ name: 'liquid-cooled glass', role: 'line', points: linePoints(lines.lc, tmin, tg ?? lines.lc.xmax) });
-  if (lines.scl) series.push({ name: 'supercooled liquid', role: 'line', points: linePoints(lines.scl, Math.min(tf ?? lines.scl.xmin, tg ?? lines.scl.xmin, lines.scl.xmin), tmax) });
-  if (lines.vd) series.push({ name: 'as deposited', role: 'line', points: linePoints(lines.vd, Math.min(tmin, tf ?? tmin), Math.max(on ?? lines.vd.xmax, lines.vd.xmax)) });
-  if (lines.transformation) series.push({ name: 'transformation', role: 'tangent', points: linePoints(lines.transformation, (on ?? lines.transformation.xmin) - 1, lines.transformation.xmax + 1) });
+  if (lines.lc) series.push({ name: 'liquid-cooled glass', role: 'line', meaning: 'liquid-cooled', points: linePoints(lines.lc, tmin, tg ?? lines.lc.xmax) });
+  if (lines.scl) series.push({ name: 'supercooled liquid', role: 'line', meaning: 'supercooled-liquid', points: linePoints(lines.scl, Math.min(tf ?? lines.scl.xmin, tg ?? lines.scl.xmin, lines.scl.xmin), tmax) });
+  if (lines.vd) series.push({ name: 'as deposited', role: 'line', meaning: 'as-deposited', points: linePoints(lines.vd, Math.min(tmin, tf ?? tmin), Math.max(on ?? lines.vd.xmax, lines.vd.xmax)) });
+  if (lines.transformation) series.push({ name: 'transformation', role: 'tangent', meaning: 'construction', points: linePoints(lines.transformation, (on ?? lines.transformation.xmin) - 1, lines.transformation.xmax + 1) });
   const markers = [
     ...(tg !== undefined ? [{ label: `Tg ${tg.toFixed(1)} K`, x: tg }] : []),
     ...(on !== undefined ? [{ label: `Tonset ${on.toFixed(1)} K`, x: on }] : []),
@@ -257,9 +363,9 @@ function rampFigure(curve: Curve, lines: RampLines, results: Record<string, Resu
 }
 
 /** Evaporation during holds and abrupt drops. */
-function scanChecks(block: ParsedBlock, c: Curve, time: Float64Array | null, segments: readonly Segment[], note: (m: Message, span: Span) => void): void {
+function scanChecks(block: ParsedBlock, c: Curve, time: Float64Array | null, segments: readonly Segment[], note: (m: Message, span: Span) => void, rowSpan: (i: number) => Span): void {
   const drop = firstAbruptDrop(c.h);
-  if (drop.index >= 0) note(messages.rampAbruptDrop(drop.drop), block.rowSpan(drop.index));
+  if (drop.index >= 0) note(messages.rampAbruptDrop(drop.drop), rowSpan(drop.index));
   if (!time) return;
   const tgRef = block.quantities.get('/reference_temperature')?.value;
   for (const s of segments) {
@@ -267,37 +373,53 @@ function scanChecks(block: ParsedBlock, c: Curve, time: Float64Array | null, seg
     const f = fitLine(time, c.h, s.start, s.end);
     const hot = tgRef === undefined || c.T[s.start] > tgRef;
     if (f && hot && f.slope < 0 && Math.abs(f.slope) > 4 * Math.sqrt(f.varSlope) && Math.abs(f.slope) * 60 > 1e-3) {
-      note(messages.rampEvaporation(-f.slope * 60), block.rowSpan(s.start));
+      note(messages.rampEvaporation(-f.slope * 60), rowSpan(s.start));
     }
   }
 }
 
-/** 5 K from Tg, shrunk when a side would keep fewer than 5 points. */
-function chooseGap(c: Curve, tg: number): number {
-  for (const gap of [LINE_GAP, 3, 2, 1]) {
-    let below = 0;
-    let above = 0;
-    for (const T of c.T) {
-      if (T <= tg - gap) below++;
-      if (T >= tg + gap) above++;
+/** Points of the heating with 0.2 ≤ x ≤ 0.8 (else 0.1–0.9), from the first crossing of the lower bound. */
+function transformationPoints(c: Curve, from: number, vd: LineFit, scl: LineFit): { T: number[]; h: number[] } {
+  const xs: number[] = [];
+  const ys: number[] = [];
+  const m = c.T.length;
+  for (const [lo, hi] of [
+    [0.2, 0.8],
+    [0.1, 0.9],
+  ] as const) {
+    xs.length = 0;
+    ys.length = 0;
+    let started = false;
+    for (let i = from; i < m; i++) {
+      const a = predict(vd, c.T[i]);
+      const b = predict(scl, c.T[i]);
+      const x = (c.h[i] - a) / (b - a);
+      if (!started && x >= lo) started = true;
+      if (!started) continue;
+      if (x > hi) break;
+      if (x >= lo) {
+        xs.push(c.T[i]);
+        ys.push(c.h[i]);
+      }
     }
-    if (below >= 5 && above >= 5) return gap;
+    if (xs.length >= 3) break;
   }
-  return 0;
+  return { T: xs, h: ys };
 }
 
 function firstHeating(
   block: ParsedBlock,
   ctx: AnalysisContext,
   c: Curve,
-  seg: Segment,
+  depositedW: [number, number] | null,
+  rowOf: (i: number) => Span,
   lines: { vd?: LineFit; scl?: LineFit; lc?: LineFit; transformation?: LineFit },
   results: Record<string, ResultValue>,
   note: (m: Message, span: Span) => void,
   vdTrim: number,
+  calTerm: UncertaintyTerm,
 ): void {
   const m = c.T.length;
-  const depositedW = window(block, 'deposited');
   let vdEnd = m; // exclusive index of the VD window in the heating segment
   let deviation = -1;
   let vd: LineFit | null;
@@ -333,11 +455,10 @@ function firstHeating(
       vd = fitLine(c.T, c.h, 0, vdEnd) ?? vd;
     }
   }
-  const rowOf = (i: number): Span => block.rowSpan(seg.start + i);
   if (!vd) return;
   lines.vd = vd;
-  if (vd.n < 8) note(messages.rampFewLinePoints('as-deposited', vd.n), rowOf(0));
   if (deviation < 0) {
+    if (vd.n < 8) note(messages.rampFewLinePoints('as-deposited', vd.n), rowOf(0));
     note(messages.rampNoOnset(), rowOf(0));
     return;
   }
@@ -358,29 +479,30 @@ function firstHeating(
   }
 
   // Transformation line through 0.2 ≤ x ≤ 0.8, from the first crossing of 0.2.
-  const xs: number[] = [];
-  const ys: number[] = [];
-  for (const [lo, hi] of [
-    [0.2, 0.8],
-    [0.1, 0.9],
-  ] as const) {
-    xs.length = 0;
-    ys.length = 0;
-    let started = false;
-    for (let i = vdEnd; i < m; i++) {
-      const a = predict(vd, c.T[i]);
-      const b = predict(scl, c.T[i]);
-      const x = (c.h[i] - a) / (b - a);
-      if (!started && x >= lo) started = true;
-      if (!started) continue;
-      if (x > hi) break;
-      if (x >= lo) {
-        xs.push(c.T[i]);
-        ys.push(c.h[i]);
+  let points = transformationPoints(c, vdEnd, vd, scl);
+  let transformation = fitLine(points.T, points.h);
+  // The as-deposited window ends below the onset by the width of the transformation (at least
+  // 2 K), so that its first rounding does not bend the line; then everything is placed again.
+  if (!depositedW && transformation) {
+    const on = intersect(vd, transformation, t95);
+    if (on) {
+      const width = Math.max(2, transformation.xmax - transformation.xmin);
+      let end = vdEnd;
+      while (end > 8 && c.T[end - 1] > on.x - width - vdTrim) end--;
+      if (end < vdEnd && end >= 8) {
+        const refit = fitLine(c.T, c.h, 0, end);
+        if (refit && scl.slope > refit.slope) {
+          vd = refit;
+          vdEnd = end;
+          lines.vd = vd;
+          points = transformationPoints(c, vdEnd, vd, scl);
+          transformation = fitLine(points.T, points.h);
+        }
       }
     }
-    if (xs.length >= 3) break;
   }
+  if (vd.n < 8) note(messages.rampFewLinePoints('as-deposited', vd.n), rowOf(0));
+
   // Densification before onset: the data fall clearly below the VD line before rising.
   {
     const sigma = Math.sqrt(vd.sigma2);
@@ -414,24 +536,34 @@ function firstHeating(
     for (let i = 0; i < m; i++) {
       run = Math.abs(c.h[i] - predict(vd, c.T[i])) > 3 * sigma && c.T[i] > vd.xmin ? run + 1 : 0;
       if (run === 3 && i - 2 >= vdEnd - 1) {
-        results.tonset_deviation = result(c.T[i - 2], 'K', 'first of 3 consecutive points more than 3σ from the as-deposited line (noise-sensitive; reported beside the extrapolated onset)');
+        results.tonset_deviation = budgeted(c.T[i - 2], 'K', 'first of 3 consecutive points more than 3σ from the as-deposited line (noise-sensitive; reported beside the extrapolated onset)', [calTerm]);
         break;
       }
     }
   }
 
-  const transformation = fitLine(xs, ys);
+  // A transformation line through a handful of points estimates its own noise poorly: its
+  // variance is at least that of the as-deposited line, measured on many more points.
+  if (transformation && transformation.sigma2 < vd.sigma2 && transformation.sigma2 > 0) {
+    const k = vd.sigma2 / transformation.sigma2;
+    transformation = { ...transformation, sigma2: vd.sigma2, varC: transformation.varC * k, varSlope: transformation.varSlope * k };
+  }
+  const vdText = `as-deposited line ${Number(vd.xmin.toFixed(1))}–${Number(vd.xmax.toFixed(1))} K${depositedW ? ' (window as written)' : ''}`;
   if (transformation) {
     lines.transformation = transformation;
     const on = intersect(vd, transformation, t95);
-    if (on) {
-      results.tonset = result(on.x, 'K', 'extrapolated onset: as-deposited line ∩ line through 0.2 ≤ x ≤ 0.8, first heating', on.se);
+    if (on && on.x < c.T[0]) {
+      note(messages.rampOnsetOutsideData(on.x, c.T[0]), rowOf(0));
+    } else if (on) {
+      const tr = `${Number(transformation.xmin.toFixed(1))}–${Number(transformation.xmax.toFixed(1))} K`;
+      results.tonset = budgeted(on.x, 'K', `extrapolated onset: ${vdText} ∩ line through 0.2 ≤ x ≤ 0.8 (${tr}), first heating`, [{ source: 'statistical', value: on.se, note: 'delta method at the intersection' }, calTerm]);
       if (!on.slopesDiffer) note(messages.rampSlopesEqual('the onset'), rowOf(deviation));
     }
   }
+  const sclText = `supercooled-liquid line ${Number(scl.xmin.toFixed(1))}–${Number(scl.xmax.toFixed(1))} K`;
   const tf = intersect(vd, scl, t95);
   if (tf) {
-    results.tfictive = result(tf.x, 'K', 'as-deposited line ∩ supercooled-liquid line', tf.se);
+    results.tfictive = budgeted(tf.x, 'K', `${vdText} ∩ ${sclText}`, [{ source: 'statistical', value: tf.se, note: 'delta method at the intersection' }, calTerm]);
     if (tf.x < vd.xmin - 20) note(messages.rampTfExtrapolated(tf.x, vd.xmin), rowOf(0));
     const agingNotes: Diagnostic[] = [];
     addAging(block, ctx, tf.x, results, agingNotes);
@@ -445,13 +577,27 @@ function firstHeating(
     return;
   }
   const explicit = block.quantities.get('/reference_temperature');
-  const tsub = filmOf(block, ctx)?.quantities.get('/substrate_temperature');
+  const film = filmOf(block, ctx);
+  // Resolved through the film's material when written as a multiple of Tg (substrateTemperature.ts).
+  const substrate = film ? substrateTemperatureOf(film, ctx) : null;
+  const tsub = substrate && substrate.source !== 'unresolved' ? substrate.quantity : undefined;
   const tref = explicit?.value ?? tsub?.value;
   if (tref === undefined) return;
+  const lo = Math.max(vd.xmin, lc.xmin);
+  const hi = Math.min(vd.xmax, lc.xmax);
+  if (tref < lo - DENSITY_EXTRAPOLATION_LIMIT || tref > hi + DENSITY_EXTRAPOLATION_LIMIT) {
+    note(messages.rampDensityGainExtrapolated(tref, lo, hi), explicit ? block.spanOf('/reference_temperature') : block.header.kindSpan);
+    return;
+  }
   const hLc = predict(lc, tref);
   const hVd = predict(vd, tref);
   const ratio = hLc / hVd;
   const u = 100 * Math.abs(ratio) * Math.sqrt(predictVariance(lc, tref) / (hLc * hLc) + predictVariance(vd, tref) / (hVd * hVd));
-  results.density_gain = result(100 * (ratio - 1), '%', `100·(h_LC/h_VD − 1) from the fitted lines at ${Number(tref.toPrecision(6))} K`, u);
-  results.reference_temperature = result(tref, 'K', explicit ? 'reference_temperature as written' : `substrate temperature of ${String(block.metadata.data.film)}`);
+  // d(gain)/dT at tref: a thermometer offset moves the lines against the reference temperature.
+  const dGain = (100 * (lc.slope * hVd - hLc * vd.slope)) / (hVd * hVd);
+  results.density_gain = budgeted(100 * (ratio - 1), '%', `100·(h_LC/h_VD − 1) at ${Number(tref.toPrecision(6))} K from the fitted lines (${vdText}; liquid-cooled line ${Number(lc.xmin.toFixed(1))}–${Number(lc.xmax.toFixed(1))} K)`, [
+    { source: 'statistical', value: u, note: 'variances of the two fitted lines at the reference temperature' },
+    { source: 'calibration', value: dGain * calTerm.value, note: `${calTerm.note} × d(gain)/dT` },
+  ]);
+  results.reference_temperature = budgeted(tref, 'K', explicit ? 'reference_temperature as written' : `substrate temperature of ${String(block.metadata.data.film)}`, []);
 }

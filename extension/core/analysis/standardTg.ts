@@ -3,8 +3,8 @@
  * material's films ("Tg at 10 K/min from a series of rates").
  *
  * - Several rates: model M1, Tg = a + b·log10 q, by least squares; the prediction at
- *   q_ref = 10 K/min has standard uncertainty s·√(1/n + (x0 − x̄)²/Sxx) and the interval
- *   ± t₀.₉₇₅(n − 2) times that. With no residual degrees of freedom, the ramps' own Tg
+ *   q_ref = 10 K/min has standard uncertainty s·√(1/n + (x0 − x̄)²/Sxx), widened by
+ *   t₀.₉₇₅(n − 2)/1.96 so that ±1.96u is the t-based 95 % interval. With no residual degrees of freedom, the ramps' own Tg
  *   uncertainties are propagated instead.
  * - One rate q ≠ q_ref: the fragility-based conversion Tg(q_ref) ≈ Tg(q) + (Tg/m)·log10(q_ref/q),
  *   which follows from dTg/d log q ≈ Tg/m (Moynihan et al., J. Am. Ceram. Soc. 59, 12 (1976)),
@@ -16,17 +16,21 @@
 import { at, type Diagnostic } from '../model/diagnostic.js';
 import { messages } from '../model/messages.js';
 import type { ParsedBlock } from '../block/parseBlock.js';
-import { t95 } from '../numeric/distributions.js';
+import { fisherFCdf, t95 } from '../numeric/distributions.js';
 import { fitLine } from '../numeric/lineFit.js';
-import { result, type ResultValue } from '../model/result.js';
+import { budgeted, type ResultValue, type UncertaintyTerm } from '../model/result.js';
 import type { AnalysisContext } from './context.js';
+import { relaxationWithoutFit } from './relaxationAnalysis.js';
 
 export const REFERENCE_RATE = 10; // K/min
 
 interface RatePoint {
   readonly logq: number;
   readonly tg: number;
+  /** The ramp's own standard uncertainty without the thermometer calibration. */
   readonly u: number;
+  /** The calibration term of the ramp's budget: shared by ramps on the same stage, never averaged down. */
+  readonly cal: number;
 }
 
 export function standardTg(material: ParsedBlock, ctx: AnalysisContext, fragility: number | undefined, diagnostics: Diagnostic[]): ResultValue | undefined {
@@ -37,7 +41,11 @@ export function standardTg(material: ParsedBlock, ctx: AnalysisContext, fragilit
     for (const ramp of ctx.referrers('ramp', 'film', film.id)) {
       const q = ramp.quantities.get('/rate')?.value;
       const tg = ctx.resultsOf(ramp).tg;
-      if (q && q > 0 && tg) points.push({ logq: Math.log10(q), tg: tg.value, u: tg.uncertainty ?? 0 });
+      if (q && q > 0 && tg) {
+        const cal = tg.budget?.find((t) => t.source === 'calibration')?.value ?? 0;
+        const u = tg.uncertainty ?? 0;
+        points.push({ logq: Math.log10(q), tg: tg.value, u: Math.sqrt(Math.max(0, u * u - cal * cal)), cal });
+      }
     }
   }
   if (points.length === 0) return undefined;
@@ -47,18 +55,31 @@ export function standardTg(material: ParsedBlock, ctx: AnalysisContext, fragilit
   const lo = Math.min(...points.map((p) => p.logq));
   const hi = Math.max(...points.map((p) => p.logq));
 
+  const calibration: UncertaintyTerm = { source: 'calibration', value: Math.max(0, ...points.map((p) => p.cal)), note: 'stage thermometer, common to all ramps (not averaged down)' };
+  for (const group of groupByRate(points)) {
+    const c = consistency(group);
+    if (c && c.p < 0.01) diagnostics.push(at(messages.replicatesDisagree(Math.pow(10, group[0].logq), group.length, c.spread, c.birge), span));
+  }
+
   if (rates.size === 1) {
-    const mean = points.reduce((s, p) => s + p.tg, 0) / points.length;
-    const u = Math.sqrt(points.reduce((s, p) => s + p.u * p.u, 0)) / points.length;
+    const n = points.length;
+    const mean = points.reduce((s, p) => s + p.tg, 0) / n;
+    const meanU2 = points.reduce((s, p) => s + p.u * p.u, 0) / n;
+    const sample = n > 1 ? points.reduce((s, p) => s + (p.tg - mean) ** 2, 0) / (n - 1) : 0;
+    const terms: UncertaintyTerm[] = [
+      { source: 'statistical', value: Math.sqrt(meanU2 / n), note: "the ramps' own uncertainties, √(Σu²)/n" },
+      { source: 'replicates', value: Math.sqrt(Math.max(0, sample - meanU2) / n), note: `scatter of the ${n} ramps beyond their own uncertainties, √((s² − mean u²)/n)` },
+      calibration,
+    ];
     const q = Math.pow(10, points[0].logq);
-    if (Math.abs(points[0].logq - x0) < 1e-9) return result(mean, 'K', `cooling ramps at 10 K/min (${points.length})`, u);
+    if (Math.abs(points[0].logq - x0) < 1e-9) return budgeted(mean, 'K', `mean of the cooling ramps at 10 K/min (${n})`, terms);
     if (!fragility) {
-      diagnostics.push(at(messages.noFragilityForConversion(), span));
+      diagnostics.push(at(messages.noFragilityForConversion(relaxationWithoutFit(material.id, ctx)), span));
       return undefined;
     }
     diagnostics.push(at(messages.fragilityConversion(q), span));
     const value = mean + (mean / fragility) * (x0 - points[0].logq);
-    return result(value, 'K', `fragility-based conversion from ${q} K/min with m = ${Number(fragility.toPrecision(4))}`, u);
+    return budgeted(value, 'K', `fragility-based conversion of the mean of ${n} ramp${n === 1 ? '' : 's'} from ${q} K/min with m = ${Number(fragility.toPrecision(4))}`, terms);
   }
 
   if (rates.size < 3) diagnostics.push(at(messages.fewRates(rates.size), span));
@@ -71,15 +92,58 @@ export function standardTg(material: ParsedBlock, ctx: AnalysisContext, fragilit
   if (!(f.slope >= 1 && f.slope <= 10)) diagnostics.push(at(messages.rateSlopeOdd(f.slope), span));
   const n = points.length;
   let u: number;
-  let k: number;
   if (n > 2) {
-    u = Math.sqrt(f.sigma2 * (1 / n + ((x0 - f.xc) * (x0 - f.xc)) / f.sxx));
-    k = t95(n - 2);
+    // With few residual degrees of freedom ν = n − 2 the scatter is itself uncertain: the term is
+    // widened by t₀.₉₇₅(ν)/1.96, so that ±1.96u is the t-based 95 % interval (GUM, JCGM 100:2008,
+    // annex G) and ±2u means the same here as for every other figure.
+    u = (Math.sqrt(f.sigma2 * (1 / n + ((x0 - f.xc) * (x0 - f.xc)) / f.sxx)) * t95(n - 2)) / 1.96;
   } else {
     // Two points: the line's prediction is a fixed combination of the two Tg values.
     const w = points.map((p) => 1 / n + ((p.logq - f.xc) * (x0 - f.xc)) / f.sxx);
     u = Math.sqrt(points.reduce((s, p, i) => s + w[i] * w[i] * p.u * p.u, 0));
-    k = 1.96;
   }
-  return result(value, 'K', `Tg = a + b·log10 q over ${rates.size} cooling rates (${n} ramps), at 10 K/min; slope ${Number(f.slope.toPrecision(3))} K/decade`, u, [value - k * u, value + k * u]);
+  const k = 1.96;
+  const combined = Math.hypot(u, calibration.value);
+  return budgeted(
+    value,
+    'K',
+    `Tg = a + b·log10 q over ${rates.size} cooling rates (${n} ramps), at 10 K/min; slope ${Number(f.slope.toPrecision(3))} K/decade`,
+    [{ source: 'statistical', value: u, note: n > 2 ? `residual scatter of the regression, s·√(1/n + (x₀ − x̄)²/Sxx) × t₀.₉₇₅(${n - 2})/1.96` : "the two ramps' own uncertainties through the line" }, calibration],
+    [value - k * combined, value + k * combined],
+  );
+}
+
+function groupByRate(points: readonly RatePoint[]): RatePoint[][] {
+  const groups = new Map<string, RatePoint[]>();
+  for (const p of points) {
+    const key = p.logq.toFixed(6);
+    const g = groups.get(key);
+    if (g) g.push(p);
+    else groups.set(key, [p]);
+  }
+  return [...groups.values()];
+}
+
+/**
+ * Whether replicate ramps agree within their uncertainties: χ² of their Tg about the weighted
+ * mean, the Birge ratio R_B = √(χ²/(n − 1)) (Birge, Phys. Rev. 40, 207 (1932)) and the p-value of
+ * χ² with n − 1 degrees of freedom. Null for fewer than 2 ramps.
+ */
+function consistency(group: readonly RatePoint[]): { birge: number; p: number; spread: number } | null {
+  if (group.length < 2) return null;
+  // No Tg is known better than 0.01 K, whatever a noise-free ramp claims.
+  const w = group.map((p) => 1 / Math.max(p.u, 0.01) ** 2);
+  const sw = w.reduce((s, x) => s + x, 0);
+  const mean = group.reduce((s, p, i) => s + w[i] * p.tg, 0) / sw;
+  const chi2 = group.reduce((s, p, i) => s + w[i] * (p.tg - mean) ** 2, 0);
+  const dof = group.length - 1;
+  // χ²/dof follows F(dof, ∞); a large second degree of freedom stands for ∞.
+  const p = 1 - fisherFCdf(chi2 / dof, dof, 1e7);
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (const q of group) {
+    lo = Math.min(lo, q.tg);
+    hi = Math.max(hi, q.tg);
+  }
+  return { birge: Math.sqrt(chi2 / dof), p, spread: hi - lo };
 }

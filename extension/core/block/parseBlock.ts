@@ -9,10 +9,10 @@
  */
 import { at, type Diagnostic, type Message, type RelatedLocation } from '../model/diagnostic.js';
 import { messages } from '../model/messages.js';
-import { parseMetadata, valueAt, type Metadata } from '../parse/metadata.js';
-import { parseQuantity, type Quantity } from '../parse/quantity.js';
+import { escapePointer, parseMetadata, valueAt, type Metadata } from '../parse/metadata.js';
+import { parseQuantity, parseTgMultiple, type Quantity } from '../parse/quantity.js';
 import { parseTable, type Table } from '../parse/table.js';
-import { CANONICAL } from '../parse/units.js';
+import { CANONICAL, dimensionWords, lookupUnit, suggestUnit } from '../parse/units.js';
 import { ID_PATTERN, type BlockHeader, type BlockKind } from '../scan/blockHeader.js';
 import type { FencedBlock } from '../scan/fenceScanner.js';
 import { quantityFields, type QuantityField } from '../schema/quantityFields.js';
@@ -34,12 +34,58 @@ export interface Reference {
   readonly span: Span;
 }
 
+/** A temperature written as `factor × Tg`, with the standard uncertainty of the factor. */
+export interface TgMultiple {
+  readonly factor: number;
+  readonly uncertainty?: number;
+}
+
 export interface TableOrigin {
   readonly source: 'inline' | 'file';
   /** Root-relative path of the data file. */
   readonly path?: string;
   /** Hash of the data file text, part of every cache key that depends on it. */
   readonly fileHash?: string;
+}
+
+/** Lines of a block's table as read (decoded, before any parsing), to show beside its errors. */
+export interface TableHead {
+  /** Root-relative path of the data file, or null for an inline table. */
+  readonly path: string | null;
+  /** Of a data file: the 0-based line of the first excerpt line. Of an inline table: the offset of that line, relative to the block. */
+  readonly at: number;
+  readonly lines: readonly string[];
+  /** Each line's length as read (a line in `lines` may be cut). */
+  readonly lengths: readonly number[];
+}
+
+/** Lines of a table to show, from `first` (0-based, into the table's lines), each cut to a length a report can show, with its length as read. */
+export interface TableHeadLines {
+  readonly first: number;
+  readonly lines: readonly string[];
+  readonly lengths: readonly number[];
+}
+
+/** How many lines of a table are kept to show beside its errors, and how many characters of each. */
+export const TABLE_HEAD_LINES = 8;
+const TABLE_HEAD_CHARACTERS = 1000;
+
+/**
+ * The lines of a table to show beside its errors: from the header (and its units line), so that an
+ * instrument's preamble does not fill the excerpt; from the first problem's line instead when that
+ * lies further below the header than the excerpt reaches.
+ */
+export function tableHeadLines(lines: readonly string[], table: Table): TableHeadLines {
+  const header = table.columns.length > 0 ? table.columns[0].headerLine : 0;
+  let firstProblem = Infinity;
+  for (const p of table.problems) if (p.line >= header && p.line < firstProblem) firstProblem = p.line;
+  const first = Math.min(firstProblem >= header + TABLE_HEAD_LINES ? firstProblem : header, Math.max(0, lines.length - 1));
+  const shown = lines.slice(first, first + TABLE_HEAD_LINES);
+  return {
+    first,
+    lines: shown.map((l) => (l.length > TABLE_HEAD_CHARACTERS ? `${l.slice(0, TABLE_HEAD_CHARACTERS)}…` : l)),
+    lengths: shown.map((l) => l.length),
+  };
 }
 
 export interface ParsedBlock {
@@ -53,8 +99,15 @@ export interface ParsedBlock {
   readonly span: Span;
   readonly metadata: Metadata;
   readonly quantities: ReadonlyMap<string, Quantity>;
+  /**
+   * Temperatures written as a multiple of the material's Tg (`substrate_temperature: 0.85 Tg`),
+   * by pointer; not in `quantities`, since only an analysis that reads the material resolves them.
+   */
+  readonly tgMultiples?: ReadonlyMap<string, TgMultiple>;
   readonly table: Table | null;
   readonly tableOrigin: TableOrigin | null;
+  /** The first lines of the table as read, shown beside its errors. */
+  readonly tableHead?: TableHead;
   /** Root-relative path of the data file the block names (read or not), for the engine's reverse index. */
   readonly dataPath: string | null;
   readonly references: readonly Reference[];
@@ -99,6 +152,11 @@ function keyLabel(pointer: string): string {
   return pointer.split('/').filter((p) => p.length > 0).join('.');
 }
 
+/** Text as a YAML plain scalar where YAML reads it back unchanged, double-quoted otherwise. */
+function yamlScalar(text: string): string {
+  return /^[^\s#&*!|>'"%@`{}[\],?:-][^#]*$/.test(text) && !/:\s|\s$/.test(text) ? text : JSON.stringify(text);
+}
+
 /** Rebases a fenced block so that its first fence character is offset 0. */
 function rebase(block: FencedBlock): FencedBlock {
   const d = block.span.start;
@@ -128,7 +186,7 @@ export interface DataTableSource {
 }
 
 export type DataTableRead =
-  | { readonly ok: true; readonly table: Table; /** Changes whenever the file's content does. */ readonly stamp: string }
+  | { readonly ok: true; readonly table: Table; /** Changes whenever the file's content does. */ readonly stamp: string; /** The file's lines to show beside the table's errors. */ readonly head: TableHeadLines }
   | { readonly ok: false; readonly reason: 'missing' | 'too-large' | 'outside-root' | 'folder' | 'unreadable'; readonly stamp: string; readonly size?: number; readonly limit?: number; readonly detail?: string };
 
 export interface ParseInput {
@@ -205,7 +263,11 @@ export function parseBlock(input: ParseInput, data: DataTableSource): ParsedBloc
   if (!isEmpty && !unread) {
     for (const p of validateMetadata(kind, metadata.data)) {
       const span = p.pointer === '' ? headerSpan : spanOf(p.pointer, p.atKey);
-      push(p.message, span);
+      const parent = p.pointer.slice(0, p.pointer.lastIndexOf('/'));
+      // A near-miss key is renamed by its fix, unless the block already has the key it means.
+      if (p.rename !== undefined && valueAt(metadata.data, `${parent}/${escapePointer(p.rename)}`) === undefined) {
+        diagnostics.push({ ...at(p.message, span), fix: { title: `Rename the key to "${p.rename}"`, span, newText: p.rename } });
+      } else push(p.message, span);
     }
     for (const [key, why] of Object.entries(recommendedKeys(kind))) {
       if (metadata.data[key] === undefined) push(messages.missingRecommended(key, kind, why), headerSpan);
@@ -214,6 +276,7 @@ export function parseBlock(input: ParseInput, data: DataTableSource): ParsedBloc
 
   // Quantities.
   const quantities = new Map<string, Quantity>();
+  const tgMultiples = new Map<string, TgMultiple>();
   for (const field of fieldsOf(kind)) {
     for (const pointer of matchingPointers(metadata.data, field.segments)) {
       const raw = valueAt(metadata.data, pointer);
@@ -221,13 +284,49 @@ export function parseBlock(input: ParseInput, data: DataTableSource): ParsedBloc
       if (typeof raw !== 'string' && !(typeof raw === 'number' && Number.isFinite(raw))) continue;
       const label = keyLabel(pointer);
       const c = CANONICAL[field.dimension];
-      const parsed = parseQuantity(raw, field.dimension);
       const span = spanOf(pointer);
+      // `substrate_temperature: 0.85 Tg`: resolved by the deposition analysis, which knows the material.
+      if (kind === 'deposition' && pointer === '/substrate_temperature') {
+        const multiple = parseTgMultiple(raw);
+        if (multiple) {
+          // Beyond 10 Tg is no deposition, and would overflow once multiplied.
+          if (multiple.factor > 0 && multiple.factor <= 10 && (multiple.uncertainty ?? 0) <= 10) tgMultiples.set(pointer, multiple);
+          else push(messages.outOfRange(label, 'a multiple of Tg above 0 and at most 10 (e.g. "0.85 Tg")'), span);
+          continue;
+        }
+      }
+      const parsed = parseQuantity(raw, field.dimension);
       if (!parsed.ok) {
+        const text = String(raw);
         if (parsed.reason === 'not-a-number') push(messages.quantityNotNumber(label, c.words, c.example), span);
-        else if (parsed.reason === 'unknown-unit') push(messages.quantityUnknownUnit(label, parsed.unitText, c.example), span);
-        else if (parsed.reason === 'wrong-dimension') push(messages.quantityWrongDimension(label, parsed.unitText, c.words, c.example), span);
-        else push(messages.quantityNotFinite(label), span);
+        else if (parsed.reason === 'ambiguous-comma') push(messages.quantityAmbiguousComma(label, text), span);
+        else if (parsed.reason === 'ambiguous-clock' && parsed.clock) push(messages.quantityAmbiguousClock(label, text, parsed.clock.first, parsed.clock.second), span);
+        else if (parsed.reason === 'tg-multiple') push(kind === 'deposition' && pointer === '/substrate_temperature' ? messages.quantityTgMultipleForm(label) : messages.quantityTgMultiple(label), span);
+        else if (parsed.reason === 'unknown-unit' || parsed.reason === 'wrong-dimension') {
+          const suggestion = suggestUnit(parsed.unitText, field.dimension);
+          const resolved = parsed.reason === 'wrong-dimension' ? lookupUnit(parsed.unitText) : null;
+          const message =
+            parsed.reason === 'unknown-unit'
+              ? messages.quantityUnknownUnit(label, parsed.unitText, c.examples, suggestion)
+              : messages.quantityWrongDimension(label, parsed.unitText, c.words, c.examples, resolved ? dimensionWords(resolved) : null, suggestion);
+          // The suggestion replaces the unit where the parser found it: in the value, and in the
+          // uncertainty too when it carries the same unit ("12 C ± 0.5 C").
+          const places = parsed.unitSpans.filter((u) => text.slice(u.start, u.end) === parsed.unitText);
+          if (suggestion && places.length > 0) {
+            let fixed = '';
+            let from = 0;
+            for (const u of [...places].sort((a, b) => a.start - b.start)) {
+              fixed += text.slice(from, u.start) + suggestion.unit;
+              from = u.end;
+            }
+            fixed += text.slice(from);
+            diagnostics.push({ ...at(message, span), fix: { title: `Write "${fixed}"`, span, newText: yamlScalar(fixed) } });
+          } else push(message, span);
+        } else push(messages.quantityNotFinite(label), span);
+        continue;
+      }
+      if (parsed.quantity.bound !== undefined && !field.boundAllowed) {
+        push(messages.quantityBound(label, String(raw)), span);
         continue;
       }
       if (parsed.assumedUnit) {
@@ -263,6 +362,7 @@ export function parseBlock(input: ParseInput, data: DataTableSource): ParsedBloc
   // Table.
   let table: Table | null = null;
   let tableOrigin: TableOrigin | null = null;
+  let tableHead: TableHead | undefined;
   let dataPath: string | null = null;
   let dataStamp = '';
   let rowLineToDoc: (line: number) => Span = () => headerSpan;
@@ -274,14 +374,19 @@ export function parseBlock(input: ParseInput, data: DataTableSource): ParsedBloc
       push(messages.tableBothData(), spanOf('/data', true));
     }
     if (inlineLines) {
-      table = parseTable(inlineLines, columnsMap);
+      table = parseTable(inlineLines, columnsMap, { inline: true });
       tableOrigin = { source: 'inline' };
       const first = separator + 1;
+      const shown = tableHeadLines(inlineLines, table);
+      tableHead = { path: null, at: map.lineSpan(first + shown.first).start, lines: shown.lines, lengths: shown.lengths };
       rowLineToDoc = (line) => map.lineSpan(first + line);
       for (const p of table.problems) {
         const lineSpan = map.lineSpan(first + p.line);
         const start = Math.min(lineSpan.start + p.start, lineSpan.end);
-        push(p.message, { start, end: Math.min(Math.max(start, lineSpan.start + p.end), lineSpan.end) });
+        const span = { start, end: Math.min(Math.max(start, lineSpan.start + p.end), lineSpan.end) };
+        if (p.replacement !== undefined && span.end - span.start === p.end - p.start) {
+          diagnostics.push({ ...at(p.message, span), fix: { title: `Write "${p.replacement}"`, span, newText: p.replacement } });
+        } else push(p.message, span);
       }
     } else if (typeof dataValue === 'string') {
       const valueSpan = spanOf('/data');
@@ -304,6 +409,7 @@ export function parseBlock(input: ParseInput, data: DataTableSource): ParsedBloc
         } else {
           table = read.table;
           tableOrigin = { source: 'file', path: resolved.path, fileHash: read.stamp };
+          tableHead = { path: resolved.path, at: read.head.first, lines: read.head.lines, lengths: read.head.lengths };
           rowLineToDoc = () => valueSpan;
           const first = table.problems[0];
           if (first) {
@@ -341,8 +447,10 @@ export function parseBlock(input: ParseInput, data: DataTableSource): ParsedBloc
     span: fence.span,
     metadata,
     quantities,
+    ...(tgMultiples.size > 0 ? { tgMultiples } : {}),
     table,
     tableOrigin,
+    ...(tableHead ? { tableHead } : {}),
     dataPath,
     references,
     diagnostics,

@@ -8,6 +8,8 @@
  * is the same colour in every chart of a notebook. The role hues differ in lightness as well as
  * hue, and every role also has its own marker shape, so the charts do not rely on hue alone.
  */
+import type { ChartRole } from '../model/figure.js';
+
 export type Theme = 'light' | 'dark';
 
 /** Surfaces and text. */
@@ -63,15 +65,8 @@ export const SURFACE: Readonly<Record<Theme, Surface>> = {
   },
 };
 
-/** What a series or marker stands for in a chart. */
-export type Role =
-  | 'as-deposited'
-  | 'supercooled-liquid'
-  | 'liquid-cooled'
-  | 'fit'
-  | 'construction'
-  | 'reference-line'
-  | 'data';
+/** What a series or marker stands for in a chart (defined with the figure data it labels). */
+export type Role = ChartRole;
 
 /** Vega shape names. */
 export type MarkerShape = 'circle' | 'square' | 'triangle-up' | 'triangle-down' | 'diamond' | 'cross' | 'wedge';
@@ -85,13 +80,13 @@ export interface RoleStyle {
 }
 
 export const ROLE: Readonly<Record<Role, RoleStyle>> = {
-  'as-deposited': { light: '#b5482a', dark: '#ef8a68', shape: 'circle', dash: [] },
+  'as-deposited': { light: '#b5482a', dark: '#ea7a58', shape: 'circle', dash: [] },
   'supercooled-liquid': { light: '#2a5fa8', dark: '#7fb0ea', shape: 'square', dash: [] },
-  'liquid-cooled': { light: '#1d7d6b', dark: '#66c9b2', shape: 'triangle-up', dash: [] },
+  'liquid-cooled': { light: '#1d7d6b', dark: '#4fb8a0', shape: 'triangle-up', dash: [] },
   fit: { light: '#1b2230', dark: '#e6e1d5', shape: 'cross', dash: [] },
   construction: { light: '#a4760f', dark: '#e3b65e', shape: 'diamond', dash: [5, 3] },
   'reference-line': { light: '#8c8778', dark: '#7d786d', shape: 'cross', dash: [2, 3] },
-  data: { light: '#4f5566', dark: '#b9b4a8', shape: 'circle', dash: [] },
+  data: { light: '#4f5566', dark: '#858075', shape: 'circle', dash: [] },
 };
 
 /**
@@ -100,12 +95,32 @@ export const ROLE: Readonly<Record<Role, RoleStyle>> = {
  */
 export const MATERIAL_COLOURS: Readonly<Record<Theme, readonly string[]>> = {
   light: ['#2a5fa8', '#b5482a', '#1d7d6b', '#7a3e65', '#a4760f', '#4f5566', '#5b8f2a', '#3d8fb8'],
-  dark: ['#7fb0ea', '#ef8a68', '#66c9b2', '#d49bc2', '#e3b65e', '#b9b4a8', '#a6d36f', '#83c6e6'],
+  dark: ['#7fb0ea', '#ea7a58', '#4fb8a0', '#d49bc2', '#e3b65e', '#858075', '#a6d36f', '#83c6e6'],
 };
 
+/**
+ * A sequential ramp for the films of a substrate-temperature series, from the lowest Tsub (first)
+ * to the highest: the dark end of ColorBrewer's YlOrBr (Harrower & Brewer, Cartogr. J. 40, 27
+ * (2003)), one warm hue family stepping in lightness, as the curves are all as-deposited glasses.
+ * No stop equals a role or material colour. On the dark sheet the ramp starts lighter so that
+ * every stop stays visible.
+ */
+export const TSUB_RAMP: Readonly<Record<Theme, readonly string[]>> = {
+  light: ['#662506', '#7f2d05', '#993404', '#b34003', '#cc4c02', '#dc5e0b', '#ec7014', '#f58620', '#fe9929'],
+  dark: ['#cc4c02', '#dc5e0b', '#ec7014', '#f58620', '#fe9929', '#feb441', '#fec44f', '#fed776', '#fee391'],
+};
+
+/** The ramp colour of the `i`-th of `n` films ordered by Tsub: spread over the ramp, distinct while n ≤ its length. */
+export function tsubRampColour(i: number, n: number, theme: Theme): string {
+  const ramp = TSUB_RAMP[theme];
+  const at = n <= 1 ? 0 : Math.round((i * (ramp.length - 1)) / (n - 1));
+  return ramp[Math.max(0, Math.min(ramp.length - 1, at))];
+}
+
 /** Marker shapes by measuring technique, for the stability maps. */
-export const TECHNIQUE_SHAPE: Readonly<Record<'ellipsometry' | 'calorimetry' | 'other', MarkerShape>> = {
+export const TECHNIQUE_SHAPE: Readonly<Record<'ellipsometry' | 'dilatometry' | 'calorimetry' | 'other', MarkerShape>> = {
   ellipsometry: 'circle',
+  dilatometry: 'triangle-down',
   calorimetry: 'diamond',
   other: 'square',
 };

@@ -6,7 +6,7 @@
  * Memory: a file is forgotten when no notebook file reads it any more (a pushed one too: a host
  * that watches files pushes only what blocks read, and is asked again when a block reads it).
  */
-import type { DataTableRead, DataTableSource } from '../block/parseBlock.js';
+import { tableHeadLines, type DataTableRead, type DataTableSource, type TableHeadLines } from '../block/parseBlock.js';
 import { parseTable, type Table } from '../parse/table.js';
 import { hashText } from '../text/hash.js';
 import type { DataFileRead, NotebookHost } from './host.js';
@@ -22,7 +22,8 @@ interface Entry {
   readonly pushed: boolean;
   readonly stamp: string;
   lines?: readonly string[];
-  readonly tables: Map<string, Table>;
+  /** Per column map: the table, and the lines shown beside its errors. */
+  readonly tables: Map<string, { readonly table: Table; readonly head: TableHeadLines }>;
 }
 
 export class DataFiles implements DataTableSource {
@@ -94,13 +95,14 @@ export class DataFiles implements DataTableSource {
     const read = e.read;
     if (!read.ok) return { ok: false, reason: read.reason, stamp: e.stamp, size: read.size, limit: this.maxBytes, detail: read.detail };
     const columnsKey = JSON.stringify(columns);
-    let table = e.tables.get(columnsKey);
-    if (!table) {
-      e.lines ??= splitLines(read.text);
-      table = parseTable(e.lines, columns);
-      e.tables.set(columnsKey, table);
+    const lines = (e.lines ??= splitLines(read.text));
+    let parsed = e.tables.get(columnsKey);
+    if (!parsed) {
+      const table = parseTable(lines, columns);
+      parsed = { table, head: tableHeadLines(lines, table) };
+      e.tables.set(columnsKey, parsed);
     }
-    return { ok: true, table, stamp: e.stamp };
+    return { ok: true, table: parsed.table, stamp: e.stamp, head: parsed.head };
   }
 }
 

@@ -28,10 +28,10 @@ import { blockTextKey, parseBlock, type ParsedBlock, type ParseInput } from '../
 import type { BlockKind } from '../model/blockKind.js';
 import { applyOverrides, at, type Diagnostic, type SeverityOverrides } from '../model/diagnostic.js';
 import { messages } from '../model/messages.js';
-import type { BlockReport, FileReport, NotebookReport } from '../model/report.js';
+import type { BlockReport, FileReport, NotebookReport, TableExcerpt } from '../model/report.js';
 import type { Span } from '../model/span.js';
 import { valueAt } from '../parse/metadata.js';
-import { readBlockHeader } from '../scan/blockHeader.js';
+import { nearBlockKind, readBlockHeader } from '../scan/blockHeader.js';
 import { scanFencedBlocks } from '../scan/fenceScanner.js';
 import { hashParts } from '../text/hash.js';
 import { LineIndex, stripBom, toOneBasedPoint } from '../text/positions.js';
@@ -160,7 +160,12 @@ export class Notebook {
     try {
       for (const fence of scanFencedBlocks(text)) {
         const header = readBlockHeader(fence);
-        if (!header) continue;
+        if (!header) {
+          // A near miss of a kind (`Deposition`, `ramps`): still ordinary markdown, but say why.
+          const near = nearBlockKind(fence);
+          if (near) diagnostics.push({ ...at(messages.blockKindTypo(near.written, near.kind), near.span), fix: { title: `Write "${near.kind}"`, span: near.span, newText: near.kind } });
+          continue;
+        }
         const source = text.slice(fence.span.start, fence.span.end);
         const input: ParseInput = { file: path, textKey: blockTextKey(path, source, fence), fence, header, source };
         const parsed = reusable.get(input.textKey) ?? this.safeParse(input, diagnostics);
@@ -607,8 +612,17 @@ class AnalysisRun {
       results: analysis.results,
       diagnostics: applyOverrides(absolute, severity),
       metadata: block.metadata.data as Readonly<Record<string, unknown>>,
-      quantities: Object.fromEntries(block.quantities),
+      quantities: analysis.quantities ? { ...Object.fromEntries(block.quantities), ...analysis.quantities } : Object.fromEntries(block.quantities),
       ...(analysis.figure ? { figure: analysis.figure } : {}),
+      ...this.tableExcerpt(block, file, start),
     };
+  }
+
+  /** Lines of a block's table as read, when the table has errors. */
+  private tableExcerpt(block: ParsedBlock, file: string, start: number): { tableExcerpt?: TableExcerpt } {
+    const head = block.tableHead;
+    if (!head || !block.table || block.table.problems.length === 0) return {};
+    const firstLine = head.path !== null ? head.at : (this.files.get(file)?.lines().positionAt(start + head.at).line ?? 0);
+    return { tableExcerpt: { path: head.path, firstLine, lines: head.lines, lengths: head.lengths } };
   }
 }

@@ -190,6 +190,12 @@ export function formatCsvNumber(value: number, uncertainty?: number, format: Num
 
 /** The two ends of an interval, each at the value's decimal place when an uncertainty set one: `[313.692, 313.966]`. */
 export function formatInterval(interval: readonly [number, number], value: number, uncertainty?: number, format: NumberFormat = DEFAULT_FORMAT): string {
+  const [low, high] = formatIntervalEnds(interval, value, uncertainty, format);
+  return `[${low}, ${high}]`;
+}
+
+/** The two ends of an interval as `formatInterval` prints them, each on its own (`—` for a non-finite end). */
+export function formatIntervalEnds(interval: readonly [number, number], value: number, uncertainty?: number, format: NumberFormat = DEFAULT_FORMAT): [string, string] {
   const p = parts(value, uncertainty, format);
   const end = (x: number): string => {
     if (!Number.isFinite(x)) return MISSING;
@@ -198,7 +204,7 @@ export function formatInterval(interval: readonly [number, number], value: numbe
     if (!useExponential(x, usable(value, uncertainty), format)) return fixedAt(x, p.place);
     return x === 0 ? '0' : exponential(x, Math.max(0, exponentOf(x) - p.place));
   };
-  return `[${end(interval[0])}, ${end(interval[1])}]`;
+  return [end(interval[0]), end(interval[1])];
 }
 
 // ---- results by name -------------------------------------------------------------------------
@@ -213,8 +219,16 @@ export function resultUncertaintyText(name: string, r: ResultValue): string {
   return formatUncertainty(r.value, r.uncertainty, formatOf(name));
 }
 
-/** `value ± u unit` of a named result. */
+/**
+ * `value ± u unit` of a named result; a bracket between methods (catalogue `bracket`) shows its
+ * interval first: `[2.6e+7, 2.8e+9] s (bracket; geometric mean 2.7e+8 s)`.
+ */
 export function resultText(name: string, r: ResultValue): string {
+  if (catalogueEntry(name)?.bracket && r.interval) {
+    const u = unitText(r.unit);
+    const unit = u === '' ? '' : ` ${u}`;
+    return `${formatInterval(r.interval, r.value, r.uncertainty, formatOf(name))}${unit} (bracket; geometric mean ${formatQuantity(r.value, r.uncertainty, r.unit, formatOf(name))})`;
+  }
   return formatQuantity(r.value, r.uncertainty, r.unit, formatOf(name));
 }
 

@@ -17,6 +17,19 @@ function fmt(value: number, digits = 4): string {
   return String(Number(value.toPrecision(digits)));
 }
 
+/** A material's relaxation block that gives no VFT law: its id, and whether its data table had errors. */
+export interface RelaxationState {
+  readonly id: string;
+  readonly tableErrors: boolean;
+}
+
+/** Why a relaxation block gives no VFT law, in words: never "no relaxation data" when there is a block. */
+function relaxationStateText(r: RelaxationState): string {
+  return r.tableErrors
+    ? `the errors in the data table of relaxation block ${r.id} prevent its VFT fit (fix them there)`
+    : `relaxation block ${r.id} gives no VFT fit (see its diagnostics)`;
+}
+
 export const messages = {
   // Blocks and fences
   blockUnclosed: (kind: string) =>
@@ -28,6 +41,8 @@ export const messages = {
     msg('block.no-id', 'warning', `This ${kind} block has no id, so nothing can refer to it. Write an id after the kind, e.g. "${kind} ${kind === 'material' ? 'M-1' : 'D-1'}".`),
   blockExtraInfo: (text: string) =>
     msg('block.extra-info', 'warning', `Text after the id is ignored: "${text}". The info string is the block kind and one id.`),
+  blockKindTypo: (written: string, kind: string) =>
+    msg('block.kind-typo', 'info', `"${written}" is not a block kind, so this block is ordinary markdown and is not analysed. Did you mean "${kind}"? Block kinds are written in lower case and singular.`),
   duplicateId: (id: string, where: string) => msg('block.duplicate-id', 'error', `The id "${id}" is already used at ${where}. Ids must be unique across the notebook.`),
 
   // YAML
@@ -55,10 +70,44 @@ export const messages = {
   // Quantities
   quantityNotNumber: (key: string, words: string, example: string) =>
     msg('quantity.not-a-number', 'error', `"${key}" must be ${words} with a unit, e.g. "${example}".`),
-  quantityUnknownUnit: (key: string, unit: string, example: string) =>
-    msg('quantity.unknown-unit', 'error', `"${unit}" in "${key}" is not a unit Vitrine knows. Write it like "${example}".`),
-  quantityWrongDimension: (key: string, unit: string, words: string, example: string) =>
-    msg('quantity.wrong-dimension', 'error', `"${key}" must be ${words}, but "${unit}" is not; e.g. "${example}".`),
+  quantityAmbiguousComma: (key: string, text: string) =>
+    msg('quantity.ambiguous-comma', 'error', `"${key}: ${text}": the comma may be a decimal comma or a thousands separator. Write the number with a decimal point and no separator (e.g. 1.25 or 1250).`),
+  /** A clock `a:b` that does not say whether it is hours and minutes or minutes and seconds. */
+  quantityAmbiguousClock: (key: string, text: string, first: number, second: number) => {
+    const n = (x: number): string => String(Number(x.toPrecision(12)));
+    const two = (x: number): string => (x < 10 ? `0${n(x)}` : n(x));
+    const seconds = 60 * first + second;
+    const hms = `${two(Math.floor(first / 60))}:${two(first % 60)}:${two(second)}`;
+    return msg(
+      'quantity.ambiguous-clock',
+      'error',
+      `"${key}: ${text}" may be ${n(first)} h ${n(second)} min or ${n(first)} min ${n(second)} s, 60 times apart. Write "${n(first)} h ${n(second)} min", or "${hms}" or "${n(seconds)} s"; or name the first part: "${n(first)}:${two(second)} h" (hours and minutes) or "${n(first)}:${two(second)} min" (minutes and seconds). The value is not used.`,
+    );
+  },
+  /** A unit Vitrine does not know; `suggestion` when a near miss of one is. */
+  quantityUnknownUnit: (key: string, unit: string, examples: readonly [string, string], suggestion: { unit: string; why: string } | null = null) =>
+    msg(
+      'quantity.unknown-unit',
+      'error',
+      suggestion
+        ? `"${unit}" in "${key}" is not a unit: ${suggestion.why}. Did you mean "${suggestion.unit}"?`
+        : `"${unit}" in "${key}" is not a unit Vitrine knows. Write it like "${examples[0]}" or "${examples[1]}".`,
+    ),
+  /** A unit of another dimension: names the one needed, two examples, what the unit measures, and a near miss. */
+  quantityWrongDimension: (key: string, unit: string, words: string, examples: readonly [string, string], unitWords: string | null = null, suggestion: { unit: string; why: string } | null = null) =>
+    msg(
+      'quantity.wrong-dimension',
+      'error',
+      `"${key}" must be ${words}, e.g. "${examples[0]}" or "${examples[1]}"; ${
+        suggestion ? `${suggestion.why}. Did you mean "${suggestion.unit}"?` : `"${unit}" is ${unitWords ?? 'not a unit of that'}.`
+      } The value is not used.`,
+    ),
+  quantityTgMultiple: (key: string) =>
+    msg('quantity.tg-multiple', 'error', `"${key}" is written as a multiple of Tg, which Vitrine resolves only in a deposition's substrate_temperature. Write the temperature, e.g. "281 K".`),
+  quantityTgMultipleForm: (key: string) =>
+    msg('quantity.tg-multiple', 'error', `"${key}" as a multiple of Tg is written "0.85 Tg", or "0.85 ± 0.01 Tg" with the uncertainty as a fraction of Tg too.`),
+  quantityBound: (key: string, text: string) =>
+    msg('quantity.bound', 'error', `"${key}: ${text}" is a bound, not a value; Vitrine needs the value to compute with. Write the value (a bound is read only where one is enough, such as base_pressure).`),
   quantityNotFinite: (key: string) => msg('quantity.not-finite', 'error', `"${key}" must be a finite number.`),
   quantityNotAboveAbsoluteZero: (key: string, kelvin: number) =>
     msg('meta.out-of-range', 'error', `"${key}" is ${fmt(kelvin)} K, at or below absolute zero: an absolute temperature must be above 0 K. Check the value and its unit.`),
@@ -74,11 +123,16 @@ export const messages = {
   tableBothData: () => msg('table.both-data', 'error', 'The block has both "data:" and an inline table. Keep one of them.'),
   tableNoHeader: () => msg('table.no-header', 'error', 'The table has no header line. Start it with column names and units, e.g. "T/K, h/nm".'),
   tableNoRows: () => msg('table.no-rows', 'error', 'The table has a header but no data rows.'),
-  tableNoUnit: (header: string) =>
-    msg('table.no-unit', 'error', `Column "${header}" has no unit. Write it as "${header}/K", "${header} (K)" or "${header} [K]".`),
-  tableUnknownUnit: (header: string, unit: string) => msg('table.unknown-unit', 'error', `Column "${header}": "${unit}" is not a unit Vitrine knows.`),
-  tableWrongDimension: (header: string, unit: string, words: string) =>
-    msg('table.wrong-dimension', 'error', `Column "${header}" holds ${words}, but "${unit}" is not a unit of that.`),
+  tableNoUnit: (header: string, words: string, examples: readonly [string, string]) =>
+    msg('table.no-unit', 'error', `Column "${header}" has no unit; it needs ${words}, such as "${examples[0]}" or "${examples[1]}" (or the unit on a line under the header).`),
+  tableUnknownUnit: (header: string, unit: string, suggestion: { unit: string; why: string } | null = null) =>
+    msg('table.unknown-unit', 'error', `Column "${header}": "${unit}" is not a unit Vitrine knows${suggestion ? `: ${suggestion.why}. Did you mean "${suggestion.unit}"?` : '.'}`),
+  tableWrongDimension: (header: string, unit: string, words: string, examples: readonly [string, string], suggestion: { unit: string; why: string } | null = null) =>
+    msg(
+      'table.wrong-dimension',
+      'error',
+      `Column "${header}" needs ${words}, such as "${examples[0]}" or "${examples[1]}"; ${suggestion ? `${suggestion.why}. Did you mean "${suggestion.unit}"?` : `"${unit}" is not a unit of that.`}`,
+    ),
   tableDuplicateColumn: (role: string) => msg('table.duplicate-column', 'error', `Two columns are ${role}. Keep one, or name the one to use in "columns:".`),
   tableMissingColumn: (role: string, kind: string, symbols: string) =>
     msg('table.missing-column', 'error', `The ${kind} table needs a ${role} column (header ${symbols}).`),
@@ -86,6 +140,12 @@ export const messages = {
     msg('table.unknown-header', 'error', `"columns: ${role}" names "${header}", but the table has no such column.`),
   tableBadCell: (text: string, header: string) =>
     msg('table.bad-cell', 'error', `"${text}" in column "${header}" is not a number.`),
+  tableClockCellInUnit: (text: string, header: string, unit: string) =>
+    msg(
+      'table.bad-cell',
+      'error',
+      `"${text}" in column "${header}" is a clock time, but the column's unit is ${unit}: write the unit as "t (hh:mm:ss)" (or "t (mm:ss)") for clock times, or write plain numbers in ${unit}.`,
+    ),
   tableEmptyCell: (header: string) => msg('table.empty-cell', 'error', `The cell in column "${header}" is empty.`),
   tableNonFinite: (text: string, header: string) =>
     msg('table.non-finite', 'error', `"${text}" in column "${header}" is not a finite number; remove the row or write the value.`),
@@ -131,6 +191,19 @@ export const messages = {
   rateUnstable: (rel: number) => msg('deposition.rate-unstable', 'warning', `The rate varies by ${fmt(100 * rel, 2)} % (more than 20 %): thickness and stability may vary across the film.`),
   tgReferenceUnknown: (material: string) =>
     msg('deposition.no-tg', 'warning', `Tsub/Tg cannot be computed: material "${material}" has no usable Tg.`),
+  tsubFromTg: (factor: number, tg: number, material: string, kelvin: number) =>
+    msg('deposition.tsub-from-tg', 'info', `Substrate temperature ${fmt(factor)} Tg = ${fmt(kelvin)} K, from the tg of material "${material}" (${fmt(tg)} K).`),
+  /** `missing`: the block names no material; `dangling`: no material has that id; `no-tg`: the material has no usable tg. */
+  tsubUnresolved: (factor: number, material: string | null, why: 'missing' | 'dangling' | 'no-tg') =>
+    msg(
+      'deposition.tsub-unresolved',
+      'error',
+      `The substrate temperature is written as ${fmt(factor)} Tg, but ${
+        why === 'missing' ? 'the block names no material' : why === 'dangling' ? `there is no material "${material ?? ''}"` : `material "${material ?? ''}" has no usable tg`
+      }, so it is unknown and nothing is computed from it. Write the tg in the material block, or the temperature in K.`,
+    ),
+  pressureBoundAboveLimit: (pa: number) =>
+    msg('deposition.pressure-high', 'warning', `The base pressure is only known to be below ${fmt(pa, 3)} Pa, which does not show a vacuum better than 1.3e-3 Pa (1e-5 Torr). Record the reading.`),
 
   // Material
   vftNoTg: (a: number) =>
@@ -184,15 +257,42 @@ export const messages = {
     msg('ramp.densification-before-onset', 'warning', 'The film densifies before the transformation (it falls below the as-deposited line): typical of low-stability films; the as-deposited line is fitted below this point only.'),
   rampSclShift: (shift: number) =>
     msg('ramp.scl-shift', 'warning', `The supercooled liquid on heating lies ${fmt(shift, 3)} nm from the one on cooling: the film changed between the two (evaporation?), which biases the density gain.`),
+  rampTgIntervalAtEdge: (end: 'low' | 'high', edge: number, needed: number) =>
+    msg(
+      'ramp.tg-at-edge',
+      'error',
+      `No Tg: the ${end === 'low' ? 'glass' : 'liquid'} line needs at least 8 points and 5 K of span ${end === 'low' ? 'below' : 'above'} the transition region, but the cooling ${end === 'low' ? 'ends' : 'starts'} at ${fmt(edge)} K; the interval of Tg reaches the edge of the data. ${end === 'low' ? 'Cool' : 'Start'} ${end === 'low' ? 'below' : 'above'} ${fmt(needed)} K.`,
+    ),
+  rampWindowsBend: (glassGap: number, liquidGap: number) =>
+    msg('ramp.curvature', 'warning', `A line window still bends with the gaps widened to ${fmt(glassGap, 3)} K below and ${fmt(liquidGap, 3)} K above Tg (aging at the low end, evaporation or crystallisation at the high end?). Tg carries the window term; set windows.glass and windows.liquid on straight parts of the scan.`),
+  rampShortGlass: (target: number, used: number) =>
+    msg('ramp.short-glass', 'info', `The glass line could not keep 2δ = ${fmt(target, 3)} K from Tg (below that the cooling holds fewer than 8 points or less than 5 K); its gap shrank to ${fmt(used, 3)} K. A glass still relaxing that close to Tg biases Tg upwards and α_h,g beyond the stated uncertainty. Cool further, or record more points below Tg.`),
+  rampDuplicateRows: (count: number) =>
+    msg('ramp.duplicate-rows', 'warning', `${count} row${count === 1 ? ' repeats' : 's repeat'} an earlier row exactly (first here); ${count === 1 ? 'it is' : 'they are'} left out, since a repeated reading is not a new measurement and would shrink the uncertainty.`),
+  rampThicknessNotPositive: (value: number, what: string) =>
+    msg('ramp.thickness-not-positive', 'error', `The ${what} ${fmt(value)} is not positive; no figure is computed from this ramp. Check the column and its unit.`),
+  rampNoTemperatureChange: () =>
+    msg('ramp.no-temperature-change', 'error', 'The temperature does not change in this ramp (all isothermal): there is no heating or cooling to analyse. Use an isotherm block for a hold.'),
+  rampEmptyWindow: (name: string, n: number, lo: number, hi: number) =>
+    msg('ramp.empty-window', 'error', `windows.${name} [${fmt(lo)} K, ${fmt(hi)} K] holds ${n} point${n === 1 ? '' : 's'} of the scan; a line needs at least 3 (8 recommended). Move the window onto the data.`),
+  rampOnsetOutsideData: (onset: number, first: number) =>
+    msg('ramp.onset-outside-data', 'warning', `The extrapolated onset (${fmt(onset)} K) lies below the first heating point (${fmt(first)} K): the transformation had begun before the scan started, so no onset is reported. Start the heating lower.`),
+  rampDensityGainExtrapolated: (tref: number, lo: number, hi: number) =>
+    msg('ramp.density-gain-extrapolated', 'warning', `The density gain would be evaluated at ${fmt(tref)} K, more than 20 K outside the temperatures where both glass lines were measured (${fmt(lo)}–${fmt(hi)} K); a straight-line extrapolation that far is not reported. Set reference_temperature within the data.`),
 
   // Relaxation
-  relaxNoColumns: () => msg('table.missing-column', 'error', 'The relaxation table needs a temperature column (T) and a relaxation-time column (tau).'),
+  relaxNoColumns: () =>
+    msg('table.missing-column', 'error', 'The relaxation table needs a temperature column (T) and a relaxation-time column (tau or log10_tau), or the loss-peak frequency (f_max or log10_fmax).'),
+  relaxUnknownTauDefinition: (written: string) =>
+    msg('relaxation.tau-definition', 'error', `tau_definition "${written}" is not one Vitrine can apply to the loss-peak frequencies: write "1/(2 pi f_max)" (the default) or "1/f_max". No fit is made until it says which.`),
   relaxNonPositive: (tau: number) => msg('relaxation.non-positive', 'error', `τ = ${fmt(tau)} s is not positive; this row is left out of the fit.`),
   relaxTooFew: (n: number) => msg('relaxation.too-few-points', 'error', `A VFT fit needs at least 4 points with τ > 0; there are ${n}.`),
   relaxShortRange: (decades: number) =>
     msg('relaxation.short-range', 'warning', `The data span only ${fmt(decades, 2)} decades of τ (fewer than 3): T0 and the fragility are poorly determined.`),
   relaxT0NearData: (t0: number, tmin: number) =>
     msg('relaxation.t0-near-data', 'warning', `T0 = ${fmt(t0)} K is within 5 K of the lowest measured temperature (${fmt(tmin)} K), or not above 0 K: the fit is not constrained.`),
+  relaxT0NotPhysical: (t0: number) =>
+    msg('relaxation.t0-not-physical', 'warning', `The VFT fit gives T0 = ${fmt(t0)} K, not above 0 K: no physical divergence temperature, so T0, B and log10 τ0 are not reported (the data look Arrhenius-like over their range).`),
   relaxTgExtrapolated: (maxTau: number) =>
     msg('relaxation.tg-extrapolated', 'warning', `The longest τ is ${fmt(maxTau, 3)} s (below 1 s): Tg (τ = 100 s) is extrapolated by more than two decades.`),
   relaxNoFit: () => msg('relaxation.no-fit', 'error', 'The VFT fit did not converge on these data.'),
@@ -209,10 +309,16 @@ export const messages = {
     msg('material.tg-extrapolated', 'warning', `10 K/min lies outside the measured cooling rates (${fmt(lo, 3)}–${fmt(hi, 3)} K/min): the standard Tg is extrapolated.`),
   rateSlopeOdd: (slope: number) =>
     msg('material.tg-rate-slope', 'warning', `Tg changes by ${fmt(slope, 3)} K per decade of cooling rate, outside the usual 1–10 K/decade (or negative). Check the rates and the Tg values.`),
+  replicatesDisagree: (rate: number, n: number, spread: number, birge: number) =>
+    msg('material.tg-replicates-disagree', 'warning', `The ${n} ramps at ${fmt(rate, 3)} K/min disagree: their Tg values span ${fmt(spread, 3)} K, ${fmt(birge, 3)} times what their uncertainties allow (Birge ratio). The standard Tg carries their scatter; check the films and the ramps.`),
   fragilityConversion: (q: number) =>
     msg('material.fragility-conversion', 'warning', `Only one cooling rate (${fmt(q, 3)} K/min): the standard Tg is a fragility-based conversion, Tg + (Tg/m)·log10(10 K/min / q).`),
-  noFragilityForConversion: () =>
-    msg('material.no-fragility', 'info', 'The films were cooled at one rate other than 10 K/min and the material has no fragility (no VFT parameters or relaxation data), so no standard Tg is computed.'),
+  noFragilityForConversion: (relaxation?: RelaxationState) =>
+    msg(
+      'material.no-fragility',
+      'info',
+      `The films were cooled at one rate other than 10 K/min and the material has no fragility (${relaxation ? `no VFT parameters, and ${relaxationStateText(relaxation)}` : 'no VFT parameters or relaxation data'}), so no standard Tg is computed.`,
+    ),
   standardTgDisagrees: (computed: number, stated: number) =>
     msg('material.standard-tg-disagrees', 'warning', `The cooling ramps give Tg(10 K/min) = ${fmt(computed)} K, ${fmt(Math.abs(computed - stated), 2)} K from the stated tg ${fmt(stated)} K.`),
 
@@ -229,8 +335,14 @@ export const messages = {
   isoSigmoidal: (dw: number) =>
     msg('isotherm.sigmoidal', 'warning', `The transformation is not linear in time (Durbin–Watson ${fmt(dw, 2)} < 1 over it): a bulk or nucleation mechanism rather than a growth front, so the front velocity is not defined.`),
   isoNoTransformation: () => msg('isotherm.no-transformation', 'warning', 'The thickness does not change between the plateaus: no transformation found.'),
-  isoNoVft: (material: string) =>
-    msg('isotherm.no-vft', 'info', `No τα: material "${material}" has neither VFT parameters nor relaxation data, so no stability ratio is computed.`),
+  isoNoVft: (material: string, relaxation?: RelaxationState) =>
+    msg(
+      'isotherm.no-vft',
+      'info',
+      relaxation
+        ? `No τα: material "${material}" has no VFT parameters, and ${relaxationStateText(relaxation)}; so no stability ratio is computed.`
+        : `No τα: material "${material}" has neither VFT parameters nor relaxation data, so no stability ratio is computed.`,
+    ),
   isoTauExtrapolated: (T: number, lo: number, hi: number) =>
     msg('isotherm.tau-extrapolated', 'warning', `τα at ${fmt(T)} K comes from extrapolating the VFT fit outside its data (${fmt(lo)}–${fmt(hi)} K).`),
 
@@ -240,7 +352,16 @@ export const messages = {
   dscWindowOverlap: (which: string) =>
     msg('dsc.window-overlap', 'error', `The ${which} baseline window reaches into the transition (the steepest rise lies inside it). Set windows.${which} away from the step.`),
   dscTooFew: (which: string) => msg('dsc.too-few-points', 'error', `The ${which} baseline window holds fewer than 3 points.`),
-  dscNoStep: () => msg('dsc.no-step', 'warning', 'The liquid baseline is not above the glass baseline: no glass-transition step found.'),
+  dscNoStep: (step: number, u: number) =>
+    msg('dsc.no-step', 'warning', `No glass-transition step: at the steepest point the baselines differ by ΔCp = ${fmt(step, 2)} ± ${fmt(u, 2)} J/(g·K), within the noise or spread over the whole scan rather than a step between the windows. No onset, midpoint or fictive temperature.`),
+  dscInvertedStep: (convention: string | null) =>
+    msg('dsc.inverted-step', 'error', `The heat capacity falls at the glass transition: the step looks inverted for ${convention ?? 'heat-capacity data'}. Check \`endotherm:\` (up or down) or the heat-flow column's sign; no figures are given.`),
+  dscInconsistent: (detail: string) =>
+    msg('dsc.inconsistent', 'error', `The construction contradicts itself (${detail}), so no onset, midpoint or fictive temperature is given. Set windows.glass and windows.liquid on straight parts of the scan.`),
+  dscStartupTransient: (from: number, to: number) =>
+    msg('dsc.startup-transient', 'warning', `The start of the scan (${fmt(from)} to ${fmt(to)} K) departs from the glass baseline: a start-up transient, left out of the automatic glass window.`),
+  dscMassFromPreamble: (text: string, mg: number) =>
+    msg('dsc.mass-from-preamble', 'info', `The sample mass is read from the export's preamble (${text}): ${fmt(mg)} mg. Write "mass:" to state it in the block.`),
   dscTfBelowWindow: (tf: number, t1: number) =>
     msg('dsc.tf-below-window', 'error', `The fictive temperature (${fmt(tf)} K) falls below the start of the glass window (${fmt(t1)} K): extend windows.glass to lower temperatures.`),
   dscReferenceMismatch: (what: string) =>

@@ -1,6 +1,6 @@
 /** A quantity read from metadata, in the canonical unit of its dimension. */
 export interface Quantity {
-  /** Value in the canonical unit of the dimension. */
+  /** Value in the canonical unit of the dimension (the bound itself, for a bound). */
   readonly value: number;
   /** Standard uncertainty in the canonical unit, when written. */
   readonly uncertainty?: number;
@@ -11,4 +11,6 @@ export interface Quantity {
   readonly writtenUnit: string;
   /** Written in °C or °F. */
   readonly offsetTemperature: boolean;
+  /** Written as a bound: `< 3e-7 Torr` or `≤ …` (upper), `> …` or `≥ …` (lower); `value` is the bound. */
+  readonly bound?: 'upper' | 'lower';
 }

@@ -26,17 +26,25 @@ export interface BlockReport {
   readonly tableExcerpt?: TableExcerpt;
 }
 
-/** The first lines of a data table as read (decoded, before any parsing). */
+/** Lines of a data table as read (decoded, before any parsing): from its header, or from its first problem when that lies further down. */
 export interface TableExcerpt {
   /** The data file's path relative to the notebook root, or null for an inline table. */
   readonly path: string | null;
   /** 0-based line of the first excerpt line: in the data file, or in the notebook file for an inline table. */
   readonly firstLine: number;
+  /** The lines, a very long one cut (ending in "…"). */
   readonly lines: readonly string[];
+  /** Each line's length as read, in UTF-16 code units, for a line that was cut. */
+  readonly lengths?: readonly number[];
 }
 
 export interface FileReport {
   readonly path: string;
+  /**
+   * The notebook folder `path` is relative to, set only where one report joins several folders
+   * (the CLI's report): ids are unique within a folder, so a film is known by folder and id.
+   */
+  readonly root?: string;
   /** The file's text, BOM removed: the text every span points into. */
   readonly text: string;
   readonly blocks: readonly BlockReport[];

@@ -33,6 +33,10 @@ export interface HingeFit {
   readonly hAtBreak: number;
   readonly slopeLow: number;
   readonly slopeHigh: number;
+  /**
+   * Standard errors of the slopes from the covariance of all four parameters, the breakpoint
+   * included (the breakpoint's own uncertainty widens them; Muggeo, Stat. Med. 22, 3055 (2003)).
+   */
   readonly seSlopeLow: number;
   readonly seSlopeHigh: number;
   readonly sse: number;
@@ -123,6 +127,49 @@ function hingeAt(p: PrefixSums, tb: number, k: number): { sse: number; c: number
     [ic * b, ic * a * b, 1 / svv + ic * b * b],
   ];
   return { sse, c, sg, sl, inv };
+}
+
+/**
+ * (JᵀJ)⁻¹ of the hinge model in (c, s_g, s_l, T_b) at the optimum, k points at or below T_b:
+ * ∂h/∂T_b = −s_g below the breakpoint and −s_l above it. Gauss–Jordan with partial pivoting;
+ * null when singular.
+ */
+function fullCovariance(p: PrefixSums, tb: number, k: number, sg: number, sl: number): number[][] | null {
+  const n = p.n;
+  const su = p.sx[k] - k * tb;
+  const sv = p.sx[n] - p.sx[k] - (n - k) * tb;
+  const suu = p.sxx[k] - 2 * tb * p.sx[k] + k * tb * tb;
+  const svv = p.sxx[n] - p.sxx[k] - 2 * tb * (p.sx[n] - p.sx[k]) + (n - k) * tb * tb;
+  const sd = -sg * k - sl * (n - k);
+  const a = [
+    [n, su, sv, sd],
+    [su, suu, 0, -sg * su],
+    [sv, 0, svv, -sl * sv],
+    [sd, -sg * su, -sl * sv, sg * sg * k + sl * sl * (n - k)],
+  ];
+  const inv = [0, 1, 2, 3].map((i) => [0, 1, 2, 3].map((j) => (i === j ? 1 : 0)));
+  for (let c = 0; c < 4; c++) {
+    let piv = c;
+    for (let r = c + 1; r < 4; r++) if (Math.abs(a[r][c]) > Math.abs(a[piv][c])) piv = r;
+    if (!(Math.abs(a[piv][c]) > 1e-300)) return null;
+    [a[c], a[piv]] = [a[piv], a[c]];
+    [inv[c], inv[piv]] = [inv[piv], inv[c]];
+    const d = a[c][c];
+    for (let j = 0; j < 4; j++) {
+      a[c][j] /= d;
+      inv[c][j] /= d;
+    }
+    for (let r = 0; r < 4; r++) {
+      if (r === c) continue;
+      const f = a[r][c];
+      if (f === 0) continue;
+      for (let j = 0; j < 4; j++) {
+        a[r][j] -= f * a[c][j];
+        inv[r][j] -= f * inv[c][j];
+      }
+    }
+  }
+  return inv[1][1] > 0 && inv[2][2] > 0 ? inv : null;
 }
 
 function countAtOrBelow(x: Float64Array, v: number): number {
@@ -244,6 +291,7 @@ export function fitHinge(xIn: ArrayLike<number>, yIn: ArrayLike<number>, options
     prev = e;
   }
   const nLow = countAtOrBelow(x, tb);
+  const full = fullCovariance(p, tb, nLow, final.sg, final.sl);
   return {
     ok: true,
     fit: {
@@ -254,8 +302,8 @@ export function fitHinge(xIn: ArrayLike<number>, yIn: ArrayLike<number>, options
       hAtBreak: final.c + my,
       slopeLow: final.sg,
       slopeHigh: final.sl,
-      seSlopeLow: Math.sqrt(sigma2 * final.inv[1][1]),
-      seSlopeHigh: Math.sqrt(sigma2 * final.inv[2][2]),
+      seSlopeLow: Math.sqrt(sigma2 * (full ? full[1][1] : final.inv[1][1])),
+      seSlopeHigh: Math.sqrt(sigma2 * (full ? full[2][2] : final.inv[2][2])),
       sse,
       sigma: Math.sqrt(sigma2),
       pTransition,

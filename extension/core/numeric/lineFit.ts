@@ -71,6 +71,44 @@ export function fitLineWhere(x: ArrayLike<number>, y: ArrayLike<number>, keep: (
   return fitLine(xs, ys);
 }
 
+/** Fits the points with lo ≤ x ≤ hi, without copying them (two passes over all points). */
+export function fitLineInRange(x: ArrayLike<number>, y: ArrayLike<number>, lo: number, hi: number): LineFit | null {
+  let n = 0;
+  let mx = 0;
+  let my = 0;
+  let xmin = Infinity;
+  let xmax = -Infinity;
+  for (let i = 0; i < x.length; i++) {
+    const xi = x[i];
+    if (!(xi >= lo && xi <= hi)) continue;
+    n++;
+    mx += xi;
+    my += y[i];
+    if (xi < xmin) xmin = xi;
+    if (xi > xmax) xmax = xi;
+  }
+  if (n < 2) return null;
+  mx /= n;
+  my /= n;
+  let sxx = 0;
+  let sxy = 0;
+  let syy = 0;
+  for (let i = 0; i < x.length; i++) {
+    const xi = x[i];
+    if (!(xi >= lo && xi <= hi)) continue;
+    const dx = xi - mx;
+    const dy = y[i] - my;
+    sxx += dx * dx;
+    sxy += dx * dy;
+    syy += dy * dy;
+  }
+  if (!(sxx > 0)) return null;
+  const slope = sxy / sxx;
+  const sse = Math.max(0, syy - slope * sxy);
+  const sigma2 = n > 2 ? sse / (n - 2) : 0;
+  return { n, xc: mx, c: my, slope, sse, sigma2, varC: sigma2 / n, varSlope: sigma2 / sxx, sxx, xmin, xmax };
+}
+
 export function predict(f: LineFit, x: number): number {
   return f.c + f.slope * (x - f.xc);
 }

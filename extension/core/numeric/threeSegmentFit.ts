@@ -3,14 +3,15 @@
  * h(t) = a + b₁·t + b₂·max(t − t₁, 0) + b₃·max(t − t₂, 0), t₁ < t₂.
  *
  * Method: for fixed breakpoints the model is linear in (a, b₁, b₂, b₃), solved by Householder
- * QR; the breakpoints are found on a 2-D grid over a thinned copy of the data (at most 400
- * points), refined by alternating Brent searches on the full data, and polished by
+ * QR; the breakpoints are found globally, on every pair of candidate times (at most 300, from the
+ * data; breakpointGrid.ts, suffix sums so each pair costs O(1)), refined by alternating Brent
+ * searches on the full data between the neighbouring candidates, and polished by
  * Levenberg–Marquardt on all six parameters. The covariance of all six
  * parameters is σ²(JᵀJ)⁻¹ with the Jacobian of the nonlinear model at the optimum
  * (∂h/∂t₁ = −b₂ for t > t₁, ∂h/∂t₂ = −b₃ for t > t₂).
  *
- * Cost: linear in the number of points, with a bounded number of evaluations (a 40 × 40 grid on
- * at most 400 points, Brent searches, at most 100 Levenberg–Marquardt iterations). Every
+ * Cost: linear in the number of points, with a bounded number of evaluations (O(n) sums and at
+ * most 300²/2 pairs of O(1) each, Brent searches, at most 100 Levenberg–Marquardt iterations). Every
  * evaluation writes the design into one typed-array workspace (qrWorkspace.ts), so it allocates
  * nothing per point, and gives the numbers that qr.ts and levenbergMarquardt.ts give.
  *
@@ -20,6 +21,7 @@ import { minimiseBrent } from './brent.js';
 import { columnLevenbergMarquardt } from './columnLevenbergMarquardt.js';
 import { inverseNormalMatrix } from './qr.js';
 import { QrWorkspace } from './qrWorkspace.js';
+import { searchBreakpoints } from './breakpointGrid.js';
 
 export interface ThreeSegmentFit {
   readonly a: number;
@@ -89,33 +91,25 @@ export function fitThreeSegments(tIn: ArrayLike<number>, hIn: ArrayLike<number>)
     tmax = Math.max(tmax, v);
   }
   if (!(tmax > tmin)) return null;
+  // Sorted by time (a log written out of order fits the same).
+  let sorted = true;
+  for (let i = 1; i < n; i++) if (t[i] < t[i - 1]) sorted = false;
+  if (!sorted) {
+    const order = Array.from(t, (_, i) => i).sort((p, q) => t[p] - t[q]);
+    const ts = Float64Array.from(order, (i) => t[i]);
+    const hs = Float64Array.from(order, (i) => h[i]);
+    t.set(ts);
+    h.set(hs);
+  }
   const work = new QrWorkspace(n, 6);
-  const stride = Math.max(1, Math.ceil(n / 400));
-  const thinned = Math.ceil(n / stride);
-  const ts = new Float64Array(thinned);
-  const hs = new Float64Array(thinned);
-  for (let i = 0, k = 0; i < n; i += stride, k++) {
-    ts[k] = t[i];
-    hs[k] = h[i];
-  }
-  const grid = 40;
-  const span = tmax - tmin;
-  let best = { sse: Infinity, t1: NaN, t2: NaN };
-  for (let i = 1; i < grid; i++) {
-    for (let j = i + 1; j <= grid; j++) {
-      const t1 = tmin + (span * i) / (grid + 1);
-      const t2 = tmin + (span * j) / (grid + 1);
-      const f = linearFit(work, ts, hs, thinned, t1, t2);
-      if (f && f.sse < best.sse) best = { sse: f.sse, t1, t2 };
-    }
-  }
-  if (!Number.isFinite(best.t1)) return null;
-  let { t1, t2 } = best;
-  const cell = span / (grid + 1);
+  // Global search: every pair of candidate breakpoints, with the linear parameters solved inside.
+  const grid = searchBreakpoints(t, h);
+  if (!grid) return null;
+  let { t1, t2 } = grid;
   const sseAt = (a: number, b: number): number => (a < b ? (linearFit(work, t, h, n, a, b)?.sse ?? Infinity) : Infinity);
   for (let round = 0; round < 2; round++) {
-    t1 = minimiseBrent((x) => sseAt(x, t2), Math.max(tmin, t1 - cell), Math.min(t2, t1 + cell), 1e-9).x;
-    t2 = minimiseBrent((x) => sseAt(t1, x), Math.max(t1, t2 - cell), Math.min(tmax, t2 + cell), 1e-9).x;
+    t1 = minimiseBrent((x) => sseAt(x, t2), Math.max(tmin, grid.t1Range[0]), Math.min(t2, grid.t1Range[1]), 1e-9).x;
+    t2 = minimiseBrent((x) => sseAt(t1, x), Math.max(t1, grid.t2Range[0]), Math.min(tmax, grid.t2Range[1]), 1e-9).x;
   }
   const start = linearFit(work, t, h, n, t1, t2);
   if (!start) return null;

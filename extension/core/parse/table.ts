@@ -1,70 +1,55 @@
 /**
- * Reads a data table: inline after a block's `---` line, or the text of a data file.
+ * Reads a data table: inline after a block's `---` line, or the text of a data file, as
+ * instruments export them (tableLayout.ts finds the preamble, header and units line).
  *
- * - Lines that are blank or start with `#` are skipped.
- * - The first other line is the header. Each header cell names a quantity and its unit in the
- *   forms `T/K` (IUPAC quantity calculus), `T (K)` or `T [K]`.
- * - The delimiter is found from the header: tab, then semicolon, then comma, else whitespace.
+ * - Each header cell names a quantity and its unit in the forms `T/K` (IUPAC quantity calculus),
+ *   `T (K)` or `T [K]`; or the units stand on a line under the header (`K, nm`), where a blank
+ *   cell, `-`, `1` or `a.u.` marks a column without unit. A units line wins over brackets in the
+ *   header, which may then hold other words: `Heat Flow (Endo Up)` states the heat-flow sign
+ *   convention, `n(632.8 nm)` a wavelength.
+ * - The delimiter is found from the header: tab, then semicolon, then comma, else whitespace. A
+ *   delimiter at the end of a row ends no column.
  * - A decimal comma (`1,25`) is read where the delimiter is not a comma.
- * - Every cell must be a finite number, in its column's unit too; a bad cell is reported on its
- *   own line and column and its row is left out, so the remaining rows can still be analysed.
+ * - Every cell of a recognised column must be a finite number (a minus may be U+2212), in its
+ *   column's unit too; a time may be a clock time (`1:05:30`, `05:30.5`), read as seconds, in a
+ *   column whose unit is a clock unit, seconds or none. A bad cell is reported on its own line and
+ *   column and its row is left out, so the remaining rows can still be analysed. A column with no
+ *   role (a comment) may hold anything; its cells are not used.
  * - A temperature is absolute: rows at or below 0 K are left out, with one error on the first.
  *
- * Columns are recognised by their symbol (`t`, `T`, `h`, `V`/`v`, `Cp`, `Phi`, `tau`) or by the
- * block's `columns:` map, and converted to the canonical unit of their role.
+ * Columns are recognised by their symbol (columnRoles.ts) or by the block's `columns:` map, and
+ * converted to the canonical unit of their role; a log10 column (`log10(f_max/kHz)`) to the
+ * decadic logarithm of the quantity in its canonical unit.
  *
- * Policy: never throws. Positions are (0-based line index into the given lines, 0-based
- * character start and end within that line).
+ * Policy: never throws; linear in the size of the lines. Positions are (0-based line index into
+ * the given lines, 0-based character start and end within that line).
  */
 import { messages } from '../model/messages.js';
 import type { Message } from '../model/diagnostic.js';
-import { CANONICAL, hasDimension, lookupUnit, toCanonical, type Dimension } from './units.js';
+import { ALTERNATIVE_ROLE, LOG_OF, ROLE_DIMENSION, roleNeeds, roleOfSymbol, type ColumnRole } from './columnRoles.js';
+import {
+  CLOCK_UNIT,
+  DECIMAL_COMMA,
+  NON_FINITE,
+  NUMBER,
+  clockSeconds,
+  headerCells,
+  isUnitless,
+  readConvention,
+  readHeader,
+  readLogHeader,
+  splitCells,
+  stripBrackets,
+  withoutTrailingEmpty,
+  type Cell,
+  type Delimiter,
+} from './tableCells.js';
+import { isSkippedLine, locateTable, type PreambleEntry } from './tableLayout.js';
+import { CANONICAL, hasDimension, lookupUnit, toCanonical, suggestUnit } from './units.js';
 
-export type ColumnRole = 'time' | 'temperature' | 'thickness' | 'volume' | 'heat_capacity' | 'heat_flow' | 'specific_heat_flow' | 'tau' | 'log10_tau';
-
-export const ROLE_DIMENSION: Readonly<Record<ColumnRole, Dimension>> = {
-  time: 'time',
-  temperature: 'temperature',
-  thickness: 'length',
-  volume: 'specific_volume',
-  heat_capacity: 'heat_capacity',
-  heat_flow: 'heat_flow',
-  tau: 'time',
-  log10_tau: 'dimensionless',
-  specific_heat_flow: 'specific_heat_flow',
-};
-
-/** A column whose unit fits another dimension takes that role instead (heat flow per mass). */
-const ALTERNATIVE_ROLE: Partial<Record<ColumnRole, ColumnRole>> = { heat_flow: 'specific_heat_flow' };
-
-export const ROLE_SYMBOLS: Readonly<Record<ColumnRole, readonly string[]>> = {
-  time: ['t', 'time'],
-  temperature: ['T', 'temperature', 'Temp'],
-  thickness: ['h', 'd', 'thickness'],
-  volume: ['V', 'v', 'volume'],
-  heat_capacity: ['Cp', 'cp', 'C_p', 'c_p', 'heat_capacity'],
-  heat_flow: ['Phi', 'phi', 'Φ', 'heat_flow', 'HF'],
-  tau: ['tau', 'τ', 'tau_alpha'],
-  log10_tau: ['log10_tau', 'log_tau', 'logtau', 'lg_tau'],
-  specific_heat_flow: [],
-};
-
-const SYMBOL_ROLE = new Map<string, ColumnRole>();
-for (const [role, symbols] of Object.entries(ROLE_SYMBOLS) as Array<[ColumnRole, readonly string[]]>) {
-  for (const s of symbols) SYMBOL_ROLE.set(s, role);
-}
-
-/** The role of a header symbol: exact first (t and T differ), then words in any case. */
-export function roleOfSymbol(symbol: string): ColumnRole | null {
-  const exact = SYMBOL_ROLE.get(symbol);
-  if (exact) return exact;
-  if (symbol.length < 3) return null;
-  const lower = symbol.toLowerCase().replace(/[\s-]+/g, '_');
-  for (const [s, role] of SYMBOL_ROLE) if (s.length >= 3 && s.toLowerCase() === lower) return role;
-  return null;
-}
-
-const UNIT_ROW_CELL = /^[([]?[A-Za-zµμÅ°℃%][^\d]*[)\]]?$|^[([]?1\/[A-Za-z].*$/;
+export { ROLE_DIMENSION, ROLE_SYMBOLS, roleOfSymbol, type ColumnRole } from './columnRoles.js';
+export { readHeader } from './tableCells.js';
+export type { PreambleEntry } from './tableLayout.js';
 
 export interface TableLine {
   readonly text: string;
@@ -75,11 +60,14 @@ export interface TableProblem {
   readonly line: number;
   readonly start: number;
   readonly end: number;
+  /** Text that would mend the problem, written over its range (a near-miss unit). */
+  readonly replacement?: string;
 }
 
 export interface TableColumn {
   readonly header: string;
   readonly symbol: string;
+  /** The unit as written (in the header or on the units line); empty for a column without unit. */
   readonly writtenUnit: string;
   readonly role: ColumnRole | null;
   /** Canonical unit of the role (or the written unit for unrecognised columns). */
@@ -88,6 +76,8 @@ export interface TableColumn {
   readonly headerLine: number;
   readonly headerStart: number;
   readonly headerEnd: number;
+  /** The sign convention a heat-flow header states (`Heat Flow (Endo Up)`, `exo down`). */
+  readonly convention?: 'endotherm-up' | 'endotherm-down';
 }
 
 export interface Table {
@@ -96,178 +86,79 @@ export interface Table {
   /** Line index (into the given lines) of each kept row. */
   readonly rowLines: Int32Array;
   readonly problems: readonly TableProblem[];
-  readonly delimiter: 'tab' | 'semicolon' | 'comma' | 'whitespace';
+  readonly delimiter: Delimiter;
   readonly byRole: ReadonlyMap<ColumnRole, TableColumn>;
+  /** `Key: value` lines above the header (an instrument's preamble: sample, mass, method, date). */
+  readonly preamble: readonly PreambleEntry[];
+  /** Line index of the units line under the header, or null. */
+  readonly unitsLine: number | null;
 }
 
-interface Cell {
-  readonly text: string;
-  readonly start: number;
-  readonly end: number;
-}
-
-// Each digit can belong to one place only (no `\d+\.?\d*`), so a long bad cell fails in linear time.
-const NUMBER = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
-const DECIMAL_COMMA = /^[+-]?\d+,\d+(?:[eE][+-]?\d+)?$/;
-const NON_FINITE = /^[+-]?(?:nan|inf|infinity)$/i;
 const MAX_PROBLEMS = 200;
 
-function splitCells(text: string, delimiter: Table['delimiter']): Cell[] {
-  const cells: Cell[] = [];
-  if (delimiter === 'whitespace') {
-    const re = /\S+/g;
-    let m: RegExpExecArray | null;
-    while ((m = re.exec(text)) !== null) cells.push({ text: m[0], start: m.index, end: m.index + m[0].length });
-    return cells;
-  }
-  const sep = delimiter === 'tab' ? '\t' : delimiter === 'semicolon' ? ';' : ',';
-  let start = 0;
-  for (let i = 0; i <= text.length; i++) {
-    if (i === text.length || text[i] === sep) {
-      let a = start;
-      let b = i;
-      while (a < b && (text[a] === ' ' || text[a] === '\t')) a++;
-      while (b > a && (text[b - 1] === ' ' || text[b - 1] === '\t' || text[b - 1] === '\r')) b--;
-      cells.push({ text: text.slice(a, b), start: a, end: b });
-      start = i + 1;
-    }
-  }
-  return cells;
+/** A column's header as read: symbol, unit (from the header or the units line) and where the unit was written. */
+interface ColumnHeader {
+  readonly cell: Cell;
+  readonly symbol: string;
+  readonly unit: string;
+  readonly unitLine: number;
+  readonly unitStart: number;
+  readonly unitEnd: number;
+  readonly convention?: 'endotherm-up' | 'endotherm-down';
+  /** Written as a logarithm, `log10(x/unit)`: the unit is that of the quantity under the logarithm. */
+  readonly log: boolean;
 }
 
-const WHITE = /\s/;
-/** What `.` in a pattern does not match. */
-const LINE_TERMINATOR = /[\n\r\u2028\u2029]/;
-const isOpen = (c: string | undefined): boolean => c === '(' || c === '[';
-const isClose = (c: string | undefined): boolean => c === ')' || c === ']';
+/** A header cell's symbol, unit and sign convention. A bracketed group that is no unit but starts with a digit (`n(632.8 nm)`) qualifies the symbol. */
+function readColumnHeader(cell: Cell, line: number): ColumnHeader {
+  const { text, convention } = readConvention(cell.text);
+  const logHeader = readLogHeader(text);
+  const { symbol, unit: written } = logHeader ?? readHeader(text);
+  const unit = isUnitless(written) || (/^\d/.test(written) && lookupUnit(written) === null) ? '' : written;
+  return { cell, symbol, unit, unitLine: line, unitStart: cell.start, unitEnd: cell.end, log: logHeader !== null, ...(convention ? { convention } : {}) };
+}
+
+/** U+2212 MINUS SIGN, as typeset text and some exports write a negative number. */
+const MINUS_SIGN = /\u2212/g;
 
 /**
- * Header cells of a whitespace-delimited header: a word with an optional bracketed unit after
- * it (`T (K)`, `h[nm]`), or a bracketed group alone. The cells the pattern
- * /[^\s([]+(?:\s*[([][^)\]]*[)\]])?|[([][^)\]]*[)\]]/g finds, found in one pass: the next
- * closing bracket is looked up once, not again from every opening bracket.
+ * Parses a table. `columnsMap` is the block's `columns:` metadata (role → header text or symbol);
+ * `inline` says the lines are an inline table (its first line that is not a comment is the header).
  */
-function whitespaceHeaderCells(text: string): Cell[] {
-  const cells: Cell[] = [];
-  const n = text.length;
-  let closeAt = -1; // the first closing bracket at or after the last lookup, or n when none
-  const nextClose = (from: number): number => {
-    if (closeAt < from) {
-      closeAt = from;
-      while (closeAt < n && !isClose(text[closeAt])) closeAt++;
-    }
-    return closeAt;
-  };
-  let i = 0;
-  while (i < n) {
-    const c = text[i];
-    if (!WHITE.test(c) && !isOpen(c)) {
-      let end = i + 1;
-      while (end < n && !WHITE.test(text[end]) && !isOpen(text[end])) end++;
-      let j = end;
-      while (j < n && WHITE.test(text[j])) j++;
-      if (isOpen(text[j]) && nextClose(j + 1) < n) end = nextClose(j + 1) + 1;
-      cells.push({ text: text.slice(i, end), start: i, end });
-      i = end;
-    } else if (isOpen(c) && nextClose(i + 1) < n) {
-      const end = nextClose(i + 1) + 1;
-      cells.push({ text: text.slice(i, end), start: i, end });
-      i = end;
-    } else {
-      i++;
-    }
-  }
-  return cells;
-}
-
-function headerCells(text: string, delimiter: Table['delimiter']): Cell[] {
-  return delimiter === 'whitespace' ? whitespaceHeaderCells(text) : splitCells(text, delimiter);
-}
-
-/**
- * A header cell split as /^(.+?)\s*[([](.*)[)\]]\s*$/ splits it, in one pass: the closing
- * bracket is the last character before trailing white space, and the symbol the shortest
- * prefix (one character at least) that white space separates from an opening bracket.
- */
-function bracketed(text: string): { symbol: string; unit: string } | null {
-  let last = text.length - 1;
-  while (last >= 0 && WHITE.test(text[last])) last--;
-  if (last < 2 || !isClose(text[last])) return null;
-  // Neither the symbol nor the unit holds a line break: the unit's opening bracket must come
-  // after the last break before the closing one.
-  let lastBreak = -1;
-  for (let i = 0; i < last; i++) if (LINE_TERMINATOR.test(text[i])) lastBreak = i;
-  let open = 1;
-  for (let s = 1; s < last; s++) {
-    if (LINE_TERMINATOR.test(text[s - 1])) return null;
-    if (open < s) open = s;
-    while (open < last && WHITE.test(text[open])) open++;
-    if (open >= last) return null;
-    if (isOpen(text[open]) && open > lastBreak) return { symbol: text.slice(0, s), unit: text.slice(open + 1, last) };
-  }
-  return null;
-}
-
-/** Splits a header cell into its symbol and unit. */
-export function readHeader(text: string): { symbol: string; unit: string } {
-  const bracket = bracketed(text);
-  const slash = text.indexOf('/');
-  if (slash > 0 && (!bracket || slash < text.indexOf(bracket.unit))) {
-    let unit = text.slice(slash + 1).trim();
-    if (/^\(.*\)$/.test(unit)) unit = unit.slice(1, -1).trim();
-    return { symbol: text.slice(0, slash).trim(), unit };
-  }
-  if (bracket) return { symbol: bracket.symbol.trim(), unit: bracket.unit.trim() };
-  return { symbol: text.trim(), unit: '' };
-}
-
-function detectDelimiter(header: string): Table['delimiter'] {
-  if (header.includes('\t')) return 'tab';
-  if (header.includes(';')) return 'semicolon';
-  if (header.includes(',')) return 'comma';
-  return 'whitespace';
-}
-
-/**
- * Parses a table. `columnsMap` is the block's `columns:` metadata (role → header text or symbol).
- */
-export function parseTable(lines: readonly string[], columnsMap: Readonly<Record<string, string>> = {}): Table {
+export function parseTable(lines: readonly string[], columnsMap: Readonly<Record<string, string>> = {}, options: { readonly inline?: boolean } = {}): Table {
   const problems: TableProblem[] = [];
-  const report = (message: Message, line: number, start: number, end: number): void => {
-    if (problems.length < MAX_PROBLEMS) problems.push({ message, line, start, end: Math.max(end, start + 1) });
+  const report = (message: Message, line: number, start: number, end: number, replacement?: string): void => {
+    if (problems.length < MAX_PROBLEMS) problems.push({ message, line, start, end: Math.max(end, start + 1), ...(replacement === undefined ? {} : { replacement }) });
   };
-  let headerIndex = -1;
-  for (let i = 0; i < lines.length; i++) {
-    const t = lines[i].trim();
-    if (t.length === 0 || t.startsWith('#')) continue;
-    headerIndex = i;
-    break;
-  }
-  const empty: Table = { columns: [], rowCount: 0, rowLines: new Int32Array(0), problems, delimiter: 'comma', byRole: new Map() };
+  const names = new Set(Object.values(columnsMap).filter((v): v is string => typeof v === 'string'));
+  const layout = locateTable(lines, { inline: options.inline === true, names });
+  const { headerIndex, unitsIndex, delimiter, preamble } = layout;
+  const empty: Table = { columns: [], rowCount: 0, rowLines: new Int32Array(0), problems, delimiter: 'comma', byRole: new Map(), preamble, unitsLine: null };
   if (headerIndex < 0) {
     report(messages.tableNoHeader(), 0, 0, lines[0]?.length ?? 0);
     return empty;
   }
   const headerText = lines[headerIndex];
-  const delimiter = detectDelimiter(headerText);
   const hcells = headerCells(headerText, delimiter);
-  const headers = hcells.map((c) => readHeader(c.text));
-  // Instrument exports often put the units on a second header line: "T, h" then "K, nm".
-  let firstRow = headerIndex + 1;
-  if (headers.every((h) => h.unit === '')) {
-    let next = firstRow;
-    while (next < lines.length && (lines[next].trim() === '' || lines[next].trim().startsWith('#'))) next++;
-    const unitCells = next < lines.length ? splitCells(lines[next], delimiter) : [];
-    if (unitCells.length === hcells.length && unitCells.every((u) => UNIT_ROW_CELL.test(u.text) && lookupUnit(u.text.replace(/^[([]|[)\]]$/g, '')) !== null)) {
-      unitCells.forEach((u, i) => (headers[i] = { symbol: headers[i].symbol, unit: u.text.replace(/^[([]|[)\]]$/g, '') }));
-      firstRow = next + 1;
-    }
+  const headers = hcells.map((c) => readColumnHeader(c, headerIndex));
+  // A units line under the header wins over what the header's brackets hold.
+  if (unitsIndex >= 0) {
+    const unitCells = withoutTrailingEmpty(splitCells(lines[unitsIndex], delimiter), delimiter);
+    unitCells.forEach((u, i) => {
+      const unit = isUnitless(u.text) ? '' : stripBrackets(u.text);
+      headers[i] = { ...headers[i], unit, unitLine: unitsIndex, unitStart: u.start, unitEnd: u.end };
+    });
   }
+  let firstRow = (unitsIndex >= 0 ? unitsIndex : headerIndex) + 1;
+  while (firstRow < lines.length && isSkippedLine(lines[firstRow])) firstRow++;
+  const firstCells = firstRow < lines.length ? splitCells(lines[firstRow], delimiter) : [];
 
   // Which role does each column have? `columns:` first, then symbols.
   const explicit = new Map<number, ColumnRole>();
   for (const [role, name] of Object.entries(columnsMap)) {
     const idx = hcells.findIndex((c, i) => c.text === name || headers[i].symbol === name);
+    // A key that names no role is the schema's to report.
+    if (!Object.hasOwn(ROLE_DIMENSION, role)) continue;
     if (idx >= 0) explicit.set(idx, role as ColumnRole);
     else report(messages.tableColumnsUnknownHeader(role, name), headerIndex, 0, headerText.length);
   }
@@ -278,44 +169,70 @@ export function parseTable(lines: readonly string[], columnsMap: Readonly<Record
     const r = roleOfSymbol(headers[i].symbol);
     return r && explicitRoles.has(r) ? null : r;
   });
-  const seen = new Set<ColumnRole>();
-  roles.forEach((r, i) => {
-    if (!r) return;
-    if (seen.has(r)) {
-      report(messages.tableDuplicateColumn(r), headerIndex, hcells[i].start, hcells[i].end);
-      roles[i] = null;
-    }
-    seen.add(r);
-  });
-
   // Conversions per column.
   const convert: Array<((v: number) => number) | null> = [];
   const units: string[] = [];
+  /**
+   * Of each column: whether its cells may be clock times, read as seconds (`h:mm:ss`, `mm:ss`), or
+   * the unit that forbids them. A clock cell is read so only in a time column whose unit is a clock
+   * unit (`t (hh:mm:ss)`), seconds, or none: `1:30` under `t/h` could mean an hour and a half or
+   * a minute and a half, and is reported rather than guessed.
+   */
+  const clock: Array<boolean | string> = [];
   hcells.forEach((c, i) => {
-    const { unit } = headers[i];
+    const h = headers[i];
+    const { unit } = h;
     const role = roles[i];
+    const drop = (message: Message, suggested?: string): void => {
+      // The fix writes the suggested unit in place of the written one, within the reported range.
+      const range = (lines[h.unitLine] ?? '').slice(h.unitStart, h.unitEnd);
+      const at = suggested === undefined ? -1 : range.lastIndexOf(unit);
+      const replacement = at < 0 ? undefined : range.slice(0, at) + suggested + range.slice(at + unit.length);
+      report(message, h.unitLine, h.unitStart, h.unitEnd, replacement);
+      convert.push(null);
+      roles[i] = null;
+    };
+    clock.push(role === 'time' && unit !== '' && !CLOCK_UNIT.test(unit) ? unit : role === 'time');
     if (!role) {
       convert.push(null);
-      units.push(unit);
+      // An unrecognised logarithm holds pure numbers, whatever unit is under the logarithm.
+      units.push(h.log ? '' : unit);
       return;
     }
     const dimension = ROLE_DIMENSION[role];
     units.push(CANONICAL[dimension].unit);
-    if (unit === '' && dimension === 'dimensionless') {
+    const needs = (): { words: string; examples: [string, string] } => roleNeeds(role, h.symbol);
+    const inner = LOG_OF[role];
+    if (unit === '' && (dimension === 'dimensionless' || (role === 'time' && clockSeconds(firstCells[i]?.text ?? '') !== null))) {
+      convert.push((v) => v);
+      return;
+    }
+    if (role === 'time' && CLOCK_UNIT.test(unit)) {
       convert.push((v) => v);
       return;
     }
     if (unit === '') {
-      report(messages.tableNoUnit(headers[i].symbol), headerIndex, c.start, c.end);
-      convert.push(null);
-      roles[i] = null;
+      const n = needs();
+      drop(messages.tableNoUnit(c.text, n.words, n.examples));
       return;
     }
     const resolved = lookupUnit(unit);
+    const nearMiss = (): { unit: string; why: string } | null => suggestUnit(unit, inner ?? dimension);
     if (!resolved) {
-      report(messages.tableUnknownUnit(c.text, unit), headerIndex, c.start, c.end);
-      convert.push(null);
-      roles[i] = null;
+      const suggestion = nearMiss();
+      drop(messages.tableUnknownUnit(c.text, unit, suggestion), suggestion?.unit);
+      return;
+    }
+    if (inner) {
+      // log10 of the quantity in this unit: shift to log10 of it in the canonical unit.
+      if (!hasDimension(resolved, inner)) {
+        const n = needs();
+        const suggestion = nearMiss();
+        drop(messages.tableWrongDimension(c.text, unit, n.words, n.examples, suggestion), suggestion?.unit);
+        return;
+      }
+      const shift = Math.log10(toCanonical(1, resolved, inner));
+      convert.push(shift === 0 ? (v) => v : (v) => v + shift);
       return;
     }
     let dim = dimension;
@@ -326,14 +243,30 @@ export function parseTable(lines: readonly string[], columnsMap: Readonly<Record
       units[units.length - 1] = CANONICAL[dim].unit;
     }
     if (!hasDimension(resolved, dim)) {
-      report(messages.tableWrongDimension(c.text, unit, CANONICAL[dimension].words), headerIndex, c.start, c.end);
-      convert.push(null);
-      roles[i] = null;
+      const n = needs();
+      const suggestion = nearMiss();
+      drop(messages.tableWrongDimension(c.text, unit, n.words, n.examples, suggestion), suggestion?.unit);
       return;
     }
     const factor = toCanonical(1, resolved, dim) - toCanonical(0, resolved, dim);
     const offset = toCanonical(0, resolved, dim);
+    if (role === 'time' && factor === 1 && offset === 0) clock[i] = true;
     convert.push(factor === 1 && offset === 0 ? (v) => v : (v) => v * factor + offset);
+  });
+
+  // Two columns of one role: the first that kept its role (its unit checked) keeps it; a column
+  // whose unit failed claims nothing (`T/Kelvn, Temperature/°C` keeps the °C column).
+  const seen = new Set<ColumnRole>();
+  roles.forEach((r, i) => {
+    if (!r) return;
+    if (seen.has(r)) {
+      report(messages.tableDuplicateColumn(r), headerIndex, hcells[i].start, hcells[i].end);
+      roles[i] = null;
+      convert[i] = null;
+      units[i] = headers[i].log ? '' : headers[i].unit;
+      clock[i] = false;
+    }
+    seen.add(r);
   });
 
   const ncol = hcells.length;
@@ -341,11 +274,12 @@ export function parseTable(lines: readonly string[], columnsMap: Readonly<Record
   const rowLines: number[] = [];
   let cold: { line: number; start: number; end: number; text: string; header: string } | null = null;
   let coldRows = 0;
-  for (let i = firstRow; i < lines.length; i++) {
+  for (let i = headerIndex + 1; i < lines.length; i++) {
+    if (i === unitsIndex) continue;
     const text = lines[i];
-    const trimmed = text.trim();
-    if (trimmed.length === 0 || trimmed.startsWith('#')) continue;
+    if (isSkippedLine(text)) continue;
     const cells = splitCells(text, delimiter);
+    if (cells.length === ncol + 1 && cells[ncol].text === '') cells.pop();
     if (cells.length !== ncol) {
       report(messages.tableRagged(cells.length, ncol), i, 0, text.length);
       continue;
@@ -354,10 +288,26 @@ export function parseTable(lines: readonly string[], columnsMap: Readonly<Record
     let ok = true;
     for (let j = 0; j < ncol; j++) {
       const cell = cells[j];
-      let t = cell.text;
+      let t = cell.text.replace(MINUS_SIGN, '-');
+      // A column with no role is not used: it may hold words (a comment column), kept as NaN.
+      if (roles[j] === null) {
+        row[j] = NUMBER.test(t) ? Number(t) : NaN;
+        continue;
+      }
       if (t.length === 0) {
         report(messages.tableEmptyCell(hcells[j].text), i, cell.start, cell.start + 1);
         ok = false;
+        continue;
+      }
+      const readClock = clock[j];
+      const seconds = readClock !== false ? clockSeconds(t) : null;
+      if (seconds !== null) {
+        if (typeof readClock === 'string') {
+          report(messages.tableClockCellInUnit(cell.text, hcells[j].text, readClock), i, cell.start, cell.end);
+          ok = false;
+          continue;
+        }
+        row[j] = seconds;
         continue;
       }
       if (delimiter !== 'comma' && DECIMAL_COMMA.test(t)) t = t.replace(',', '.');
@@ -397,20 +347,22 @@ export function parseTable(lines: readonly string[], columnsMap: Readonly<Record
   const columns: TableColumn[] = hcells.map((c, j) => {
     const values = new Float64Array(rows.length);
     for (let r = 0; r < rows.length; r++) values[r] = rows[r][j];
-    const { symbol, unit } = headers[j];
+    const { symbol, unit, convention } = headers[j];
+    const role = roles[j];
     return {
       header: c.text,
       symbol,
       writtenUnit: unit,
-      role: roles[j],
+      role,
       unit: units[j],
       values,
       headerLine: headerIndex,
       headerStart: c.start,
       headerEnd: c.end,
+      ...(convention && (role === 'heat_flow' || role === 'specific_heat_flow') ? { convention } : {}),
     };
   });
   const byRole = new Map<ColumnRole, TableColumn>();
   for (const col of columns) if (col.role) byRole.set(col.role, col);
-  return { columns, rowCount: rows.length, rowLines: Int32Array.from(rowLines), problems, delimiter, byRole };
+  return { columns, rowCount: rows.length, rowLines: Int32Array.from(rowLines), problems, delimiter, byRole, preamble, unitsLine: unitsIndex >= 0 ? unitsIndex : null };
 }

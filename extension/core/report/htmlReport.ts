@@ -1,10 +1,12 @@
 /**
- * The static HTML report: the notebook's files in reading order (top-level files first, then
- * each folder by path) with their prose rendered by unified
- * (remark → rehype → sanitize → stringify), each data block replaced by its chart, results table
- * and diagnostics, then the summary table and the stability maps. One self-contained file: no
- * scripts, no network. Everything taken from the notebook is escaped or sanitized; the only raw
- * markup inserted is Vitrine's own (and the SVG its renderer made).
+ * The static HTML report, written as a lab record: a header band with the notebook's name, the
+ * date, Vitrine's version and the notebook folder; the notebook's files in reading order
+ * (top-level files first, then each folder by path) with their prose rendered by unified
+ * (remark → rehype → sanitize → stringify), each data block replaced by its entry (blockCard.ts);
+ * then the summary per film and the stability maps. One self-contained file: no scripts, no
+ * network; the look comes from the design tokens (stylesheet.ts). Everything taken from the
+ * notebook is escaped or sanitized; the only raw markup inserted is Vitrine's own (and the SVG
+ * its renderer made).
  */
 import rehypeSanitize from 'rehype-sanitize';
 import rehypeStringify from 'rehype-stringify';
@@ -12,105 +14,96 @@ import remarkParse from 'remark-parse';
 import remarkRehype from 'remark-rehype';
 import { unified } from 'unified';
 import type { Code, Root, RootContent } from 'mdast';
-import { catalogueEntry } from '../model/catalogue.js';
-import { resultIntervalText, resultUncertaintyText, resultValueText, unitText } from '../model/formatResult.js';
 import type { BlockReport, NotebookReport } from '../engine/notebook.js';
 import type { FilmSummary } from '../engine/summary.js';
-import { SUMMARY_TABLE_COLUMNS, isNumeric, summaryCell } from '../engine/summaryColumns.js';
-import type { ResultValue } from '../model/result.js';
+import { SUMMARY_TABLE_COLUMNS, celsiusText, isNumeric, summaryCell, type SummaryColumn } from '../engine/summaryColumns.js';
 import { hashText } from '../text/hash.js';
-import { LineIndex, toOneBasedPoint } from '../text/positions.js';
+import { LineIndex } from '../text/positions.js';
 import { countDiagnostics } from '../engine/counts.js';
 import { jsonDiagnostic } from '../engine/jsonReport.js';
+import { blockCardHtml, chartFailedHtml, drawingHtml, type ChartDrawing, type ChartImage } from './blockCard.js';
 import { escapeHtml } from './escape.js';
+import { powerOfTenHtml } from './readable.js';
+import { reportStylesheet } from './stylesheet.js';
+import { subjectsOf, type BlockSubject } from './subject.js';
 
-/** A chart that could not be drawn, and why in a few words: its card shows this instead. */
-export interface ChartFailure {
-  readonly failed: string;
+export type { ChartDrawing, ChartFailure, ChartImage } from './blockCard.js';
+
+/** What the header of the record says beside the notebook's name. */
+export interface ReportRecord {
+  /** When the report was written, as printed (the CLI passes today's date; tests pass a fixed one). */
+  readonly date: string;
+  /** Vitrine's version (the CLI reads it from package.json). */
+  readonly version: string;
+  /** The notebook folder(s) read, as the reader should see them. */
+  readonly folders: readonly string[];
 }
+
+/**
+ * A stability map: drawn (one SVG, or both themes), failed to draw, or a note that stands in
+ * for it (a map that needs more films than the notebook has).
+ */
+export type MapEntry = { readonly name: string; readonly title?: string } & ({ readonly svg: string | ChartDrawing } | { readonly failed: string } | { readonly note: string });
 
 export interface ReportInput {
+  /** The notebook's name, shown in the header band. */
   readonly title: string;
+  readonly record?: ReportRecord;
   readonly report: NotebookReport;
-  /** SVG of each block's chart, or why it could not be drawn. */
-  readonly charts: ReadonlyMap<BlockReport, string | ChartFailure>;
+  /** Each block's chart (both themes, or one SVG), or why it could not be drawn. */
+  readonly charts: ReadonlyMap<BlockReport, ChartImage>;
   readonly summary: readonly FilmSummary[];
-  readonly maps: ReadonlyArray<{ readonly name: string; readonly svg: string } | { readonly name: string; readonly failed: string }>;
+  readonly maps: readonly MapEntry[];
+  /** Per material: the Tsub series normalised to the liquid line and the relaxation map. */
+  readonly materialFigures?: readonly MapEntry[];
 }
 
-/** The short message that stands in for a chart that could not be drawn. */
-function chartFailed(reason: string): string {
-  return `<p class="chart-failed">This chart could not be drawn (${escapeHtml(reason)}). The figures and messages are not affected.</p>`;
+/** A summary cell: the formatter's text (exponents as powers of ten), °C beside an absolute temperature. */
+function summaryCellHtml(column: SummaryColumn, row: FilmSummary): string {
+  const text = summaryCell(column, row);
+  if (!isNumeric(column)) return `<td>${escapeHtml(text)}</td>`;
+  let beside = '';
+  if (column.absoluteTemperature === true) {
+    const kelvin = column.type === 'number' ? column.number(row) : column.type === 'result' ? column.result(row)?.value : undefined;
+    const value = text.split(' ± ')[0];
+    const celsius = kelvin === undefined ? '' : celsiusText(value, kelvin);
+    if (celsius) beside = `<span class="beside">${escapeHtml(celsius)} °C</span>`;
+  }
+  return `<td class="num">${powerOfTenHtml(text)}${beside}</td>`;
 }
 
-const STYLE = `
-:root { color-scheme: light dark; --fg: #1f2328; --muted: #59636e; --bg: #ffffff; --card: #f6f8fa; --line: #d0d7de; --err: #b42318; --warn: #9a6700; --info: #0969da; }
-@media (prefers-color-scheme: dark) { :root { --fg: #e6edf3; --muted: #9198a1; --bg: #0d1117; --card: #161b22; --line: #30363d; --err: #ff7b72; --warn: #d29922; --info: #58a6ff; } }
-body { font-family: "DejaVu Sans", Verdana, sans-serif; color: var(--fg); background: var(--bg); max-width: 1100px; margin: 2rem auto; padding: 0 1.5rem; line-height: 1.5; }
-h1 { font-size: 1.7rem; } h2.file { border-top: 2px solid var(--line); padding-top: 1rem; margin-top: 2.5rem; font-size: 1.05rem; color: var(--muted); font-family: "DejaVu Sans Mono", monospace; }
-section.block { background: var(--card); border: 1px solid var(--line); border-radius: 8px; padding: 0.8rem 1rem; margin: 1rem 0; }
-section.block h3 { margin: 0 0 0.5rem; font-size: 1rem; font-family: "DejaVu Sans Mono", monospace; }
-.chart { max-width: 700px; margin-bottom: 0.6rem; }
-.chart svg { width: 100%; height: auto; background: #fff; border-radius: 4px; }
-.chart-failed { color: var(--muted); font-style: italic; border-left: 3px solid var(--warn); padding-left: 0.5rem; }
-table { border-collapse: collapse; font-size: 0.85rem; width: 100%; }
-th, td { border-bottom: 1px solid var(--line); padding: 0.25rem 0.4rem; text-align: left; vertical-align: top; }
-td.num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
-td.method { color: var(--muted); font-size: 0.78rem; }
-ul.diagnostics { list-style: none; padding: 0; margin: 0.5rem 0 0; font-size: 0.82rem; }
-ul.diagnostics li { margin: 0.2rem 0; padding-left: 0.5rem; border-left: 3px solid var(--line); }
-li.error { border-color: var(--err) !important; } li.warning { border-color: var(--warn) !important; } li.info { border-color: var(--info) !important; }
-.sev { font-weight: bold; } li.error .sev { color: var(--err); } li.warning .sev { color: var(--warn); } li.info .sev { color: var(--info); }
-code.code { color: var(--muted); }
-.maps { display: grid; grid-template-columns: repeat(auto-fit, minmax(320px, 1fr)); gap: 1rem; }
-.maps svg { width: 100%; height: auto; background: #fff; border-radius: 4px; }
-pre { background: var(--card); padding: 0.6rem; overflow-x: auto; }
-footer { margin-top: 3rem; color: var(--muted); font-size: 0.8rem; }
-`;
-
-/** Each result under its label (the result name beside it), printed by the one formatter. */
-function resultsTable(results: Readonly<Record<string, ResultValue>>): string {
-  const entries = Object.entries(results);
-  if (entries.length === 0) return '';
-  const rows = entries
-    .map(([name, r]) => {
-      const entry = catalogueEntry(name);
-      const label = entry ? `<span class="label" title="${escapeHtml(entry.meaning)}">${escapeHtml(entry.label)}</span> ` : '';
-      const uText = resultUncertaintyText(name, r);
-      const u = uText ? `± ${escapeHtml(uText)}` : '';
-      const intervalText = resultIntervalText(name, r);
-      const interval = intervalText ? `<br><span class="interval">${escapeHtml(intervalText)}</span>` : '';
-      return `<tr><td>${label}<code>${escapeHtml(name)}</code></td><td class="num">${escapeHtml(resultValueText(name, r))}</td><td class="num">${u}</td><td>${escapeHtml(unitText(r.unit))}</td><td class="method">${escapeHtml(r.method)}${interval}</td></tr>`;
-    })
-    .join('');
-  return `<table class="results"><thead><tr><th>result</th><th>value</th><th>u</th><th>unit</th><th>method</th></tr></thead><tbody>${rows}</tbody></table>`;
+/** The anchor of each film's deposition entry, by file path and film id. */
+function filmAnchors(report: NotebookReport, entries: Entries): (row: FilmSummary) => string | undefined {
+  const byFilm = new Map<string, string>();
+  for (const f of report.files) for (const b of f.blocks) if (b.kind === 'deposition' && b.id !== null && entries.has(b)) byFilm.set(`${f.root ?? ''}\n${f.path}\n${b.id}`, entries.get(b)!);
+  return (row) => byFilm.get(`${row.root ?? ''}\n${row.file}\n${row.film}`);
 }
 
-function blockHtml(block: BlockReport, lines: LineIndex, chartImage: string | ChartFailure | undefined): string {
-  const svg = typeof chartImage === 'string' ? chartImage : undefined;
-  const diags = block.diagnostics
-    .map((d) => {
-      const r = jsonDiagnostic(d, lines);
-      return `<li class="${escapeHtml(d.severity)}"><span class="sev">${escapeHtml(d.severity)}</span> line ${r.line}: ${escapeHtml(d.message)} <code class="code">${escapeHtml(d.code)}</code></li>`;
-    })
-    .join('');
-  const line = toOneBasedPoint(lines.positionAt(block.span.start)).line;
-  const title = `<h3><span class="kind">${escapeHtml(block.kind)}</span> ${escapeHtml(block.id ?? '(no id)')} <small>line ${line}</small></h3>`;
-  const chart = svg ? `<div class="chart">${svg}</div>` : chartImage && typeof chartImage !== 'string' ? chartFailed(chartImage.failed) : '';
-  const side = `<div>${resultsTable(block.results)}${diags ? `<ul class="diagnostics">${diags}</ul>` : ''}</div>`;
-  return `<section class="block${svg ? '' : ' nochart'}">${title}${chart}${side}</section>`;
-}
-
-function summaryHtml(rows: readonly FilmSummary[]): string {
+function summaryHtml(rows: readonly FilmSummary[], anchorOf: (row: FilmSummary) => string | undefined = () => undefined): string {
   if (rows.length === 0) return '<p>No films (deposition blocks) yet.</p>';
   const columns = SUMMARY_TABLE_COLUMNS;
-  const head = columns.map((c) => `<th title="${escapeHtml(c.meaning)}">${escapeHtml(c.header)}</th>`).join('');
-  const body = rows.map((r) => `<tr>${columns.map((c) => `<td${isNumeric(c) ? ' class="num"' : ''}>${escapeHtml(summaryCell(c, r))}</td>`).join('')}</tr>`).join('');
+  const head = columns.map((c) => `<th${isNumeric(c) ? ' class="num"' : ''} title="${escapeHtml(c.meaning)}">${escapeHtml(c.header)}</th>`).join('');
+  const cell = (c: SummaryColumn, r: FilmSummary): string => {
+    const anchor = c.key === 'film' ? anchorOf(r) : undefined;
+    return anchor ? `<td><a href="#${anchor}">${escapeHtml(r.film)}</a></td>` : summaryCellHtml(c, r);
+  };
+  const body = rows.map((r) => `<tr>${columns.map((c) => cell(c, r)).join('')}</tr>`).join('');
   return `<table class="summary"><thead><tr>${head}</tr></thead><tbody>${body}</tbody></table>`;
 }
 
+function mapHtml(m: MapEntry, i: number): string {
+  const title = m.title ? `<figcaption><b>${escapeHtml(m.title)}</b></figcaption>` : '';
+  // A drawn map carries its title; a map not drawn is named above the reason.
+  const inner = 'svg' in m ? drawingHtml(m.svg, `m${i}`) : `${title}${'failed' in m ? chartFailedHtml(m.failed) : `<p class="stand-in">${escapeHtml(m.note)}</p>`}`;
+  const chart = 'svg' in m && typeof m.svg !== 'string' ? ' chart' : '';
+  return `<figure class="map${chart}" id="map-${escapeHtml(m.name)}">${inner}</figure>`;
+}
+
+/** Keys of the entries written (`e3-1`: file 3, block 1), each an anchor of the page. */
+type Entries = Map<BlockReport, string>;
+
 /** Renders one markdown file, with its data blocks replaced by their sections. */
-function fileHtml(file: NotebookReport['files'][number], charts: ReportInput['charts']): string {
+function fileHtml(file: NotebookReport['files'][number], fileIndex: number, charts: ReportInput['charts'], subjectOf: (b: BlockReport) => BlockSubject, entries: Entries): string {
   const nonce = hashText(file.text + file.path);
   const byStart = new Map(file.blocks.map((b) => [b.span.start, b]));
   const lines = new LineIndex(file.text);
@@ -125,7 +118,9 @@ function fileHtml(file: NotebookReport['files'][number], charts: ReportInput['ch
         const block = start !== undefined ? byStart.get(start) : undefined;
         if (block) {
           const token = `vitrineblock${nonce}n${inserts.size}`;
-          inserts.set(token, blockHtml(block, lines, charts.get(block)));
+          const key = `e${fileIndex}-${file.blocks.indexOf(block)}`;
+          entries.set(block, key);
+          inserts.set(token, blockCardHtml(block, charts.get(block), { lines, subject: subjectOf(block), key }));
           nodes[i] = { type: 'paragraph', children: [{ type: 'text', value: token }] };
           continue;
         }
@@ -149,27 +144,50 @@ function readingOrder(a: { path: string }, b: { path: string }): number {
   return da - db || (a.path < b.path ? -1 : a.path > b.path ? 1 : 0);
 }
 
+/** The record's header: the notebook's name in the band, then date, version and folder. */
+function headerHtml(input: ReportInput): string {
+  const r = input.record;
+  const item = (term: string, value: string): string => `<div><dt>${escapeHtml(term)}</dt><dd>${escapeHtml(value)}</dd></div>`;
+  const record = r
+    ? `<dl class="record">${item('date', r.date)}${item(r.folders.length === 1 ? 'notebook folder' : 'notebook folders', r.folders.join(', '))}${item('Vitrine', r.version)}</dl>`
+    : '';
+  return `<header class="band"><div class="inner"><p class="what">Lab record · stability notebook</p><h1>${escapeHtml(input.title)}</h1>${record}</div></header>`;
+}
+
 export function buildHtmlReport(input: ReportInput): string {
-  const files = [...input.report.files]
-    .sort(readingOrder)
-    .map((f) => {
-      const fileDiags = f.diagnostics.map((d) => `<li class="${escapeHtml(d.severity)}"><span class="sev">${escapeHtml(d.severity)}</span> ${escapeHtml(d.message)} <code class="code">${escapeHtml(d.code)}</code></li>`).join('');
-      return `<h2 class="file">${escapeHtml(f.path)}</h2>${fileDiags ? `<ul class="diagnostics">${fileDiags}</ul>` : ''}<article>${fileHtml(f, input.charts)}</article>`;
+  const subjectOf = subjectsOf(input.report);
+  const entries: Entries = new Map();
+  const ordered = [...input.report.files].sort(readingOrder);
+  const files = ordered
+    .map((f, i) => {
+      const lines = new LineIndex(f.text);
+      const fileDiags = f.diagnostics
+        .map((d) => `<li class="${escapeHtml(d.severity)}"><span class="tag">${escapeHtml(d.severity)}</span><span class="at">line ${jsonDiagnostic(d, lines).line}</span><span>${escapeHtml(d.message)} <code>${escapeHtml(d.code)}</code></span></li>`)
+        .join('');
+      const count = f.blocks.length;
+      return `<section class="page" id="file-${i + 1}"><h2 class="file"><span>${escapeHtml(f.path)}</span><span class="folio">${count} data block${count === 1 ? '' : 's'}</span></h2>${fileDiags ? `<ol class="findings">${fileDiags}</ol>` : ''}<article>${fileHtml(f, i + 1, input.charts, subjectOf, entries)}</article></section>`;
     })
     .join('\n');
-  const maps = input.maps.map((m) => `<figure class="map" id="map-${escapeHtml(m.name)}">${'svg' in m ? m.svg : chartFailed(m.failed)}</figure>`).join('');
+  const maps = input.maps.map(mapHtml).join('');
+  const materialFigures = (input.materialFigures ?? []).map((m, i) => mapHtml(m, input.maps.length + i)).join('');
   const blockCount = input.report.files.reduce((n, f) => n + f.blocks.length, 0);
-  const errors = countDiagnostics(input.report).error;
+  const counts = countDiagnostics(input.report);
+  const plural = (n: number, word: string): string => `${n} ${word}${n === 1 ? '' : 's'}`;
+  const contents = ordered.map((f, i) => `<a href="#file-${i + 1}">${escapeHtml(f.path)}</a>`).join('');
   return `<!doctype html>
 <html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">
+<meta name="color-scheme" content="light dark">
 <meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; img-src data:">
-<title>${escapeHtml(input.title)}</title><style>${STYLE}</style></head>
-<body><h1>${escapeHtml(input.title)}</h1>
-<p>${input.report.files.length} files, ${blockCount} data blocks, ${errors} errors. Summary table and stability maps at the end.</p>
+<title>${escapeHtml(input.title)} — lab record</title><style>${reportStylesheet()}</style></head>
+<body>${headerHtml(input)}
+<main><p class="lead">${plural(input.report.files.length, 'file')}, ${plural(blockCount, 'data block')}: ${plural(counts.error, 'error')}, ${plural(counts.warning, 'warning')}. The summary per film, the stability maps and the figures per material follow the pages.</p>
+<nav class="contents">${contents}<a href="#summary">summary per film</a>${maps ? '<a href="#maps">stability maps</a>' : ''}${materialFigures ? '<a href="#materials">figures per material</a>' : ''}</nav>
 ${files}
-<h2 id="summary">Summary per film</h2>${summaryHtml(input.summary)}
-${maps ? `<h2 id="maps">Stability maps</h2><div class="maps">${maps}</div>` : ''}
-<footer>Written by Vitrine. Numbers are computed from the notebook's data with the methods named beside them; they do not replace the lab's own checks or safety rules.</footer>
+<h2 class="part" id="summary">Summary per film</h2>${summaryHtml(input.summary, filmAnchors(input.report, entries))}
+${maps ? `<h2 class="part" id="maps">Stability maps</h2><div class="maps">${maps}</div>` : ''}
+${materialFigures ? `<h2 class="part" id="materials">Figures per material</h2><div class="maps">${materialFigures}</div>` : ''}
+<footer>Written by Vitrine${input.record ? ` ${escapeHtml(input.record.version)} on ${escapeHtml(input.record.date)}` : ''}. Numbers are computed from the notebook's data with the methods named beside them; they do not replace the lab's own checks or safety rules.</footer>
+</main>
 </body></html>
 `;
 }

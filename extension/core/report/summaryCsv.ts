@@ -1,4 +1,8 @@
-/** `--csv`: one row per film with units in the header, the numbers printed as in the tables. */
+/**
+ * `--csv`: one row per film with units in the header: every per-film figure with its uncertainty,
+ * its value in °C beside a temperature in K, and its method; the numbers printed as in the tables
+ * (rounded to their uncertainty).
+ */
 import { SUMMARY_COLUMNS, csvCells, csvHeaders } from '../engine/summaryColumns.js';
 import type { FilmSummary } from '../engine/summary.js';
 import { csvField, csvNumberField } from './escape.js';

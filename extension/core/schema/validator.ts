@@ -11,6 +11,7 @@ import { messages } from '../model/messages.js';
 import type { Message } from '../model/diagnostic.js';
 import type { BlockKind } from '../scan/blockHeader.js';
 import { SCHEMAS, type JsonSchema } from './schemas.js';
+import { nearest } from '../text/editDistance.js';
 
 type AjvClass = typeof ajv2020.Ajv2020;
 const Ajv2020: AjvClass = ajv2020.Ajv2020 ?? (ajv2020 as unknown as { default: { Ajv2020: AjvClass } }).default.Ajv2020;
@@ -21,6 +22,8 @@ export interface SchemaProblem {
   readonly pointer: string;
   /** Point at the key rather than the value (unknown keys, missing nested keys). */
   readonly atKey: boolean;
+  /** A known key that an unknown key is a near miss of: the fix renames the key to it. */
+  readonly rename?: string;
 }
 
 let compiled: Map<BlockKind, ValidateFunction> | null = null;
@@ -31,6 +34,8 @@ function validators(): Map<BlockKind, ValidateFunction> {
   ajv.addKeyword({ keyword: 'quantityOf', schemaType: 'string' });
   // Checked on the quantity once its unit is read (parseBlock.ts), not on the text.
   ajv.addKeyword({ keyword: 'quantityExclusiveMinimum', schemaType: 'number' });
+  // A bound (`< 3e-7 Torr`) is enough for this quantity: kept as a bound (parseBlock.ts).
+  ajv.addKeyword({ keyword: 'quantityBound', schemaType: 'boolean' });
   ajv.addKeyword({ keyword: 'recommended', schemaType: 'object' });
   const map = new Map<BlockKind, ValidateFunction>();
   for (const [kind, schema] of Object.entries(SCHEMAS) as Array<[BlockKind, JsonSchema]>) {
@@ -45,32 +50,13 @@ export function recommendedKeys(kind: BlockKind): Readonly<Record<string, string
   return (SCHEMAS[kind].recommended as Record<string, string> | undefined) ?? {};
 }
 
-/** Edit distance, for "did you mean". */
-function distance(a: string, b: string): number {
-  const d: number[] = Array.from({ length: b.length + 1 }, (_, j) => j);
-  for (let i = 1; i <= a.length; i++) {
-    let prev = d[0];
-    d[0] = i;
-    for (let j = 1; j <= b.length; j++) {
-      const tmp = d[j];
-      d[j] = Math.min(d[j] + 1, d[j - 1] + 1, prev + (a[i - 1] === b[j - 1] ? 0 : 1));
-      prev = tmp;
-    }
-  }
-  return d[b.length];
-}
-
+/**
+ * The known name a written one is a near miss of, for "did you mean": case folded, within a
+ * restricted Damerau–Levenshtein distance of 2 (1 for names of four letters or fewer), or
+ * abbreviating one name part by part (`substrate_temp`); see text/editDistance.ts.
+ */
 export function suggest(word: string, candidates: readonly string[]): string | null {
-  let best: string | null = null;
-  let bestD = Infinity;
-  for (const c of candidates) {
-    const dd = distance(word.toLowerCase(), c.toLowerCase());
-    if (dd < bestD) {
-      bestD = dd;
-      best = c;
-    }
-  }
-  return best !== null && bestD <= Math.max(2, Math.floor(word.length / 3)) ? best : null;
+  return nearest(word, candidates, word.length <= 4 ? 1 : 2);
 }
 
 function keyName(pointer: string): string {
@@ -120,7 +106,8 @@ export function validateMetadata(kind: BlockKind, data: unknown): SchemaProblem[
       case 'additionalProperties': {
         const extra = String((e.params as { additionalProperty: string }).additionalProperty);
         const allowed = Object.keys(((e.parentSchema as JsonSchema | undefined)?.properties as object | undefined) ?? {});
-        out.push({ message: messages.unknownKey(pointer === '' ? extra : `${key}.${extra}`, kind, suggest(extra, allowed)), pointer: `${pointer}/${extra}`, atKey: true });
+        const near = suggest(extra, allowed);
+        out.push({ message: messages.unknownKey(pointer === '' ? extra : `${key}.${extra}`, kind, near), pointer: `${pointer}/${extra}`, atKey: true, ...(near ? { rename: near } : {}) });
         break;
       }
       case 'type': {
