@@ -121,6 +121,71 @@ function readColumnHeader(cell: Cell, line: number): ColumnHeader {
 /** U+2212 MINUS SIGN, as typeset text and some exports write a negative number. */
 const MINUS_SIGN = /\u2212/g;
 
+const SPACE = 32;
+const TAB = 9;
+const CR = 13;
+const SEPARATOR: Readonly<Record<Delimiter, number>> = { tab: TAB, semicolon: 59, comma: 44, whitespace: -1 };
+
+/** A character a plain number is written with: digits, sign, point, exponent. */
+function numberChar(c: number): boolean {
+  return (c >= 48 && c <= 57) || c === 43 || c === 45 || c === 46 || c === 69 || c === 101;
+}
+
+/**
+ * The common row, read without a string or an object per cell: exactly `ncol` plain numbers
+ * (`NUMBER`, then one more empty cell at the end for a trailing delimiter) separated by the
+ * delimiter, with spaces and tabs around them. Writes them to `out` and returns true; returns
+ * false for anything else (a word, an empty cell, a decimal comma, a clock time, U+2212, a ragged
+ * row), which the general reader then takes cell by cell, with its findings.
+ */
+function readPlainRow(text: string, delimiter: Delimiter, ncol: number, out: Float64Array): boolean {
+  const sep = SEPARATOR[delimiter];
+  const n = text.length;
+  let i = 0;
+  let j = 0;
+  for (;;) {
+    while (i < n && (text.charCodeAt(i) === SPACE || (text.charCodeAt(i) === TAB && sep !== TAB))) i++;
+    const start = i;
+    while (i < n && numberChar(text.charCodeAt(i))) i++;
+    const end = i;
+    while (i < n && (text.charCodeAt(i) === SPACE || (text.charCodeAt(i) === TAB && sep !== TAB) || text.charCodeAt(i) === CR)) i++;
+    if (end === start) {
+      // Only an empty last cell after a trailing delimiter, or the end of a whitespace row.
+      return i === n && j === ncol && (sep === -1 || j > 0);
+    }
+    if (j === ncol) return false;
+    const cell = text.slice(start, end);
+    if (!NUMBER.test(cell)) return false;
+    out[j++] = Number(cell);
+    if (i === n) return j === ncol;
+    if (sep === -1) continue;
+    if (text.charCodeAt(i) !== sep) return false;
+    i++;
+    if (i === n) return j === ncol;
+  }
+}
+
+/** Columns of numbers that grow as rows are read. */
+class ColumnBuffers {
+  private data: Float64Array[];
+  length = 0;
+  constructor(private readonly ncol: number) {
+    this.data = Array.from({ length: ncol }, () => new Float64Array(64));
+  }
+  push(row: ArrayLike<number>): void {
+    if (this.length === this.data[0]?.length) this.data = this.data.map((d) => {
+      const bigger = new Float64Array(d.length * 2);
+      bigger.set(d);
+      return bigger;
+    });
+    for (let j = 0; j < this.ncol; j++) this.data[j][this.length] = row[j];
+    this.length++;
+  }
+  column(j: number): Float64Array {
+    return this.data[j].slice(0, this.length);
+  }
+}
+
 /**
  * Parses a table. `columnsMap` is the block's `columns:` metadata (role → header text or symbol);
  * `inline` says the lines are an inline table (its first line that is not a comment is the header).
@@ -270,13 +335,33 @@ export function parseTable(lines: readonly string[], columnsMap: Readonly<Record
   });
 
   const ncol = hcells.length;
-  const rows: number[][] = [];
+  const rows = new ColumnBuffers(ncol);
   const rowLines: number[] = [];
+  const plain = new Float64Array(ncol);
+  const temperatureAt = roles.indexOf('temperature');
+  /** Converts a plain row in place; false when a value is not finite or a temperature not above 0 K (the general reader reports it). */
+  const convertPlain = (): boolean => {
+    for (let j = 0; j < ncol; j++) {
+      if (roles[j] === null) continue;
+      const f = convert[j];
+      const v = f ? f(plain[j]) : plain[j];
+      if (!Number.isFinite(v)) return false;
+      plain[j] = v;
+    }
+    return temperatureAt < 0 || plain[temperatureAt] > 0;
+  };
   let cold: { line: number; start: number; end: number; text: string; header: string } | null = null;
   let coldRows = 0;
   for (let i = headerIndex + 1; i < lines.length; i++) {
     if (i === unitsIndex) continue;
     const text = lines[i];
+    const first = text.charCodeAt(0);
+    const startsLikeNumber = (first >= 48 && first <= 57) || first === 45 || first === 43 || first === 46 || first === SPACE || first === TAB;
+    if (startsLikeNumber && readPlainRow(text, delimiter, ncol, plain) && convertPlain()) {
+      rows.push(plain);
+      rowLines.push(i);
+      continue;
+    }
     if (isSkippedLine(text)) continue;
     const cells = splitCells(text, delimiter);
     if (cells.length === ncol + 1 && cells[ncol].text === '') cells.pop();
@@ -345,8 +430,7 @@ export function parseTable(lines: readonly string[], columnsMap: Readonly<Record
   if (rows.length === 0 && problems.length === 0) report(messages.tableNoRows(), headerIndex, 0, headerText.length);
 
   const columns: TableColumn[] = hcells.map((c, j) => {
-    const values = new Float64Array(rows.length);
-    for (let r = 0; r < rows.length; r++) values[r] = rows[r][j];
+    const values = rows.column(j);
     const { symbol, unit, convention } = headers[j];
     const role = roles[j];
     return {

@@ -1,0 +1,68 @@
+import assert from 'node:assert/strict';
+import fc from 'fast-check';
+import { parseTable } from '../../extension/core/parse/table.js';
+import { propertyOptions } from '../support/propertyOptions.js';
+
+// Rows of a data table, as instruments and people write them: plain numbers, numbers with spaces,
+// tabs and trailing delimiters, and rows the reader must refuse (words, empty cells, a temperature
+// at or below 0 K, too many or too few cells). The table reader keeps exactly the rows a plain
+// reference reader written here keeps — split at the delimiter, trimmed, each cell a decimal
+// number in the grammar of ECMAScript's StringToNumber restricted to plain decimals — with the same
+// values, converted from °C (T/K = t/°C + 273.15, ISO 80000-5; common practice, no source).
+
+const DECIMAL = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
+
+const cell = fc.oneof(
+  { weight: 8, arbitrary: fc.double({ min: -400, max: 1e4, noNaN: true, noDefaultInfinity: true }).map((v) => String(v)) },
+  { weight: 2, arbitrary: fc.integer({ min: -300, max: 900 }).map((v) => String(v)) },
+  { weight: 1, arbitrary: fc.constant('') },
+  { weight: 1, arbitrary: fc.constantFrom('n/a', 'abc', '1e999', '.5', '+3', '-0', '1.', 'e5', '1e', '--1', '5-', '1.2.3') },
+);
+const pad = fc.constantFrom('', ' ', '  ', '\t');
+const delimiter = fc.constantFrom(',', ';', '\t', ' ');
+
+const row = (sep: string) =>
+  fc.tuple(fc.array(fc.tuple(pad, cell, pad), { minLength: 1, maxLength: 3 }), fc.boolean()).map(([cells, trailing]) => {
+    const text = cells.map(([a, c, b]) => (sep === ' ' || sep === '\t' ? c : a + c + b)).join(sep);
+    return trailing && sep !== ' ' ? text + sep : text;
+  });
+
+/** The rows the plain reference keeps: [T in K, h]. */
+function reference(lines: readonly string[], sep: string): Array<[number, number]> {
+  const kept: Array<[number, number]> = [];
+  for (const line of lines) {
+    if (line.trim() === '') continue;
+    let cells = sep === ' ' ? line.trim().split(/\s+/) : line.split(sep).map((c) => c.replace(/^[ \t]+|[ \t\r]+$/g, ''));
+    if (sep !== ' ' && cells.length === 3 && cells[2] === '') cells = cells.slice(0, 2);
+    if (cells.length !== 2 || !cells.every((c) => DECIMAL.test(c))) continue;
+    const t = Number(cells[0]) + 273.15;
+    const h = Number(cells[1]);
+    if (!Number.isFinite(t) || !Number.isFinite(h) || !(t > 0)) continue;
+    kept.push([t, h]);
+  }
+  return kept;
+}
+
+describe('data table rows against a plain reference reader', () => {
+  it('keeps the same rows with the same values', () => {
+    fc.assert(
+      fc.property(
+        delimiter.chain((sep) => fc.tuple(fc.constant(sep), fc.array(row(sep), { minLength: 0, maxLength: 30 }))),
+        ([sep, lines]) => {
+          const header = sep === ' ' ? 'T/°C h/nm' : ['T/°C', 'h/nm'].join(sep);
+          const table = parseTable([header, ...lines]);
+          const expected = reference(lines, sep);
+          const T = table.byRole.get('temperature');
+          const h = table.byRole.get('thickness');
+          assert.ok(T && h, 'both columns');
+          assert.equal(table.rowCount, expected.length, JSON.stringify({ lines, problems: table.problems.map((p) => p.message.code) }));
+          expected.forEach(([t, hv], r) => {
+            assert.ok(Math.abs(T.values[r] - t) <= 1e-9 * Math.abs(t), `T row ${r}`);
+            assert.equal(h.values[r], hv, `h row ${r}`);
+          });
+        },
+      ),
+      propertyOptions(400, 20261202),
+    );
+  });
+});
