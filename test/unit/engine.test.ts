@@ -153,3 +153,21 @@ describe('Notebook as an editor drives it', () => {
     assert.deepEqual(JSON.parse(JSON.stringify(report)), report);
   });
 });
+
+describe('chart data only when a chart is asked for', () => {
+  it('gives a ramp its figure on first reading, once, and as plain data to JSON', () => {
+    const rows: number[][] = [];
+    for (let T = 340; T >= 280 - 1e-9; T -= 0.5) rows.push([T, T >= 310 ? 100 + 0.07 * (T - 310) : 100 + 0.02 * (T - 310)]);
+    const nb = new Notebook(new InMemoryHost());
+    nb.setFile('n.md', MATERIAL_BLOCK(315) + DEPOSITION_BLOCK('D-1', 270) + tableBlock('ramp', 'R-1', 'film: D-1\nrate: 1 K/min\ndirection: cooling\n', 'T/K, h/nm', rows));
+    const ramp = nb.analyze().files[0].blocks.find((b) => b.kind === 'ramp')!;
+    // Not built by the analysis: a getter until read.
+    assert.equal(typeof Object.getOwnPropertyDescriptor(ramp, 'figure')?.get, 'function');
+    assert.ok(ramp.results.tg, 'the figures of merit are there without it');
+    const first = ramp.figure;
+    assert.ok(first && first.series.length > 0);
+    assert.equal(ramp.figure, first, 'made once');
+    const copy = JSON.parse(JSON.stringify(ramp)) as { figure?: { series: unknown[] } };
+    assert.equal(copy.figure?.series.length, first.series.length);
+  });
+});

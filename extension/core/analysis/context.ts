@@ -31,7 +31,8 @@ export class Cancelled extends Error {
 export interface Analysis {
   readonly results: Results;
   readonly diagnostics: readonly Diagnostic[];
-  readonly figure?: FigureData;
+  /** The chart's data, or how to make it: built only when a chart is asked for. */
+  readonly figure?: FigureData | (() => FigureData);
   /**
    * Quantities the analysis resolved from other blocks (a substrate temperature written as
    * `0.85 Tg`), by pointer, in canonical units: reported beside the block's own quantities.

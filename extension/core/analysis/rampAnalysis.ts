@@ -300,8 +300,12 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext, choices: R
   }
   const quantity = hcol.role === 'volume' ? `V / (${hcol.unit})` : 'h / nm';
   if (choices.figuresOnly) return { analysis: { results, diagnostics }, lines };
-  const figure = rampFigure(curve, lines, results, quantity);
-  return { analysis: { results, diagnostics, figure: hcol.role === 'volume' ? { ...figure, measured: 'volume' } : figure }, lines };
+  // Drawn only when a chart is asked for: `analyze --json` and `check` never build it.
+  const figure = (): FigureData => {
+    const f = rampFigure(curve, lines, results, quantity);
+    return hcol.role === 'volume' ? { ...f, measured: 'volume' } : f;
+  };
+  return { analysis: { results, diagnostics, figure }, lines };
 }
 
 /**

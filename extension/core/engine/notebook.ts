@@ -28,6 +28,7 @@ import { blockTextKey, parseBlock, type ParsedBlock, type ParseInput } from '../
 import type { BlockKind } from '../model/blockKind.js';
 import { applyOverrides, at, type Diagnostic, type SeverityOverrides } from '../model/diagnostic.js';
 import { messages } from '../model/messages.js';
+import type { FigureData } from '../model/figure.js';
 import type { BlockReport, FileReport, NotebookReport, TableExcerpt } from '../model/report.js';
 import type { Span } from '../model/span.js';
 import { valueAt } from '../parse/metadata.js';
@@ -50,6 +51,13 @@ export interface NotebookOptions {
 /** Structural, so that any host's token fits (LSP, VS Code, a test's plain object). */
 export interface CancellationToken {
   readonly isCancellationRequested: boolean;
+}
+
+/** The finite figure of an analysis, made once and only when first asked for when it is given as a function. */
+function lazyFigure(figure: FigureData | (() => FigureData)): FigureData | (() => FigureData) {
+  if (typeof figure !== 'function') return finiteFigure(figure);
+  let made: FigureData | undefined;
+  return () => (made ??= finiteFigure(figure()));
 }
 
 export interface AnalyzeOptions {
@@ -537,7 +545,7 @@ class AnalysisRun {
         ...raw,
         results: finite.results,
         diagnostics: [...raw.diagnostics, ...finite.diagnostics, ...plausibilityWarnings(finite.results, span)],
-        ...(raw.figure ? { figure: finiteFigure(raw.figure) } : {}),
+        ...(raw.figure ? { figure: lazyFigure(raw.figure) } : {}),
       };
     } catch (e) {
       this.inProgress.delete(block);
@@ -605,7 +613,7 @@ class AnalysisRun {
     const shift = (s: Span): Span => ({ start: s.start + start, end: s.end + start });
     const absolute = relative.map((d) => ({ ...d, span: shift(d.span), ...(d.fix ? { fix: { ...d.fix, span: shift(d.fix.span) } } : {}) }));
     absolute.sort((a, b) => a.span.start - b.span.start || a.span.end - b.span.end);
-    return {
+    const report: BlockReport = {
       kind: block.kind,
       id: block.id,
       span: { start: block.span.start + start, end: block.span.end + start },
@@ -613,9 +621,15 @@ class AnalysisRun {
       diagnostics: applyOverrides(absolute, severity),
       metadata: block.metadata.data as Readonly<Record<string, unknown>>,
       quantities: analysis.quantities ? { ...Object.fromEntries(block.quantities), ...analysis.quantities } : Object.fromEntries(block.quantities),
-      ...(analysis.figure ? { figure: analysis.figure } : {}),
       ...this.tableExcerpt(block, file, start),
     };
+    const figure = analysis.figure;
+    if (figure === undefined) return report;
+    if (typeof figure !== 'function') return { ...report, figure };
+    // The chart's data is made on first reading (a chart, a report, a copy), then kept; an
+    // ordinary enumerable property to everything that reads it, JSON included.
+    Object.defineProperty(report, 'figure', { enumerable: true, configurable: true, get: figure });
+    return report;
   }
 
   /** Lines of a block's table as read, when the table has errors. */
