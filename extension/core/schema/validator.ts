@@ -26,23 +26,25 @@ export interface SchemaProblem {
   readonly rename?: string;
 }
 
-let compiled: Map<BlockKind, ValidateFunction> | null = null;
+let ajv: InstanceType<AjvClass> | null = null;
+const compiled = new Map<BlockKind, ValidateFunction>();
 
-function validators(): Map<BlockKind, ValidateFunction> {
-  if (compiled) return compiled;
-  const ajv = new Ajv2020({ allErrors: true, strict: true, allowUnionTypes: true, strictRequired: false, verbose: true });
-  ajv.addKeyword({ keyword: 'quantityOf', schemaType: 'string' });
-  // Checked on the quantity once its unit is read (parseBlock.ts), not on the text.
-  ajv.addKeyword({ keyword: 'quantityExclusiveMinimum', schemaType: 'number' });
-  // A bound (`< 3e-7 Torr`) is enough for this quantity: kept as a bound (parseBlock.ts).
-  ajv.addKeyword({ keyword: 'quantityBound', schemaType: 'boolean' });
-  ajv.addKeyword({ keyword: 'recommended', schemaType: 'object' });
-  const map = new Map<BlockKind, ValidateFunction>();
-  for (const [kind, schema] of Object.entries(SCHEMAS) as Array<[BlockKind, JsonSchema]>) {
-    map.set(kind, ajv.compile(schema));
+/** The validator of a kind, compiled on first use: a notebook of ramps never compiles the DSC schema. */
+function validatorOf(kind: BlockKind): ValidateFunction {
+  let v = compiled.get(kind);
+  if (v) return v;
+  if (!ajv) {
+    ajv = new Ajv2020({ allErrors: true, strict: true, allowUnionTypes: true, strictRequired: false, verbose: true });
+    ajv.addKeyword({ keyword: 'quantityOf', schemaType: 'string' });
+    // Checked on the quantity once its unit is read (parseBlock.ts), not on the text.
+    ajv.addKeyword({ keyword: 'quantityExclusiveMinimum', schemaType: 'number' });
+    // A bound (`< 3e-7 Torr`) is enough for this quantity: kept as a bound (parseBlock.ts).
+    ajv.addKeyword({ keyword: 'quantityBound', schemaType: 'boolean' });
+    ajv.addKeyword({ keyword: 'recommended', schemaType: 'object' });
   }
-  compiled = map;
-  return map;
+  v = ajv.compile(SCHEMAS[kind] as JsonSchema);
+  compiled.set(kind, v);
+  return v;
 }
 
 /** Keys the schema names as recommended, with the reason shown to the user. */
@@ -75,8 +77,8 @@ const TYPE_WORDS: Record<string, string> = {
 };
 
 export function validateMetadata(kind: BlockKind, data: unknown): SchemaProblem[] {
-  const validate = validators().get(kind);
-  if (!validate) return [];
+  if (!(kind in SCHEMAS)) return [];
+  const validate = validatorOf(kind);
   if (validate(data)) return [];
   const errors = (validate.errors ?? []) as ErrorObject[];
   const out: SchemaProblem[] = [];
