@@ -40,6 +40,24 @@ describe('isotherm analysis', () => {
     assert.deepEqual(b.diagnostics, []);
   });
 
+  it('carries the hold thermometer into the relaxation time and the stability ratio', () => {
+    // d log10 τ / dT = −B/(T − T0)² for the decadic VFT law (Böhmer, Ngai, Angell & Plazek,
+    // J. Chem. Phys. 99, 4201 (1993)): at T − T0 = 53.75 K and B = 700 K, a 0.5 K uncertainty of the
+    // hold temperature is 700·0.5/53.75² = 0.1211 decade [computed], i.e. u(τ)/τ = ln 10 · 0.1211.
+    const relative = (Math.LN10 * 700 * 0.5) / (53.75 * 53.75);
+    const b = isotherm(hold());
+    const tau = b.results.tau_alpha;
+    const term = tau.budget?.find((t) => t.source === 'calibration');
+    assert.ok(term, JSON.stringify(tau.budget));
+    assert.ok(Math.abs(term.value / tau.value - relative) < 1e-9, `${term.value / tau.value}`);
+    const s = b.results.stability_ratio;
+    assert.ok(Math.abs(s.budget!.find((t) => t.source === 'calibration')!.value / s.value - relative) < 1e-9);
+    // A better thermometer, written: the term scales with it.
+    const better = isotherm(hold(), 'temperature_calibration: 0.1 K\n').results.tau_alpha;
+    const t2 = better.budget!.find((t) => t.source === 'calibration')!;
+    assert.ok(Math.abs(t2.value / better.value - relative / 5) < 1e-9);
+  });
+
   it('halves the front velocity with two fronts', () => {
     const b = isotherm(hold(), 'fronts: 2\n');
     assert.ok(Math.abs(b.results.front_velocity.value - 0.05) < 1e-7);

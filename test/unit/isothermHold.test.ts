@@ -149,7 +149,12 @@ describe('isotherm holds from a growth-front model (Swallen et al., Phys. Rev. L
     const tau = b.results.tau_alpha;
     const uLog = Math.hypot(10 / 53.75, (700 * 2) / 53.75 ** 2);
     assert.ok(Math.abs(uLog - 0.51907) < 1e-5);
-    assert.ok(Math.abs(tau.uncertainty! / (tau.value * Math.LN10) - uLog) < 1e-9, `${tau.uncertainty}`);
+    const law = tau.budget!.find((t) => t.source === 'VFT law')!;
+    assert.ok(Math.abs(law.value / (tau.value * Math.LN10) - uLog) < 1e-9, `${law.value}`);
+    // Beside it, the hold thermometer's default 0.5 K: 700·0.5/53.75² decades [computed].
+    const cal = tau.budget!.find((t) => t.source === 'calibration')!;
+    assert.ok(Math.abs(tau.uncertainty! - Math.hypot(law.value, cal.value)) < 1e-9 * tau.uncertainty!);
+    assert.ok(Math.abs(cal.value / (tau.value * Math.LN10) - (700 * 0.5) / 53.75 ** 2) < 1e-9);
     const s = b.results.stability_ratio;
     assert.ok(s.budget!.some((t) => t.source === 'VFT law'));
   });

@@ -612,8 +612,14 @@ export function analyzeDsc(block: ParsedBlock, ctx: AnalysisContext): Analysis {
       const hi = Math.min(t2, refCurve.T[refCurve.T.length - 1]);
       const refAt = (t: number): number => {
         const R = refCurve.T;
+        // The first k ≥ 1 with R[k] ≥ t (or the last row), by bisection: the scans are in rising T.
         let k = 1;
-        while (k < R.length - 1 && R[k] < t) k++;
+        let hiK = R.length - 1;
+        while (k < hiK) {
+          const mid = (k + hiK) >> 1;
+          if (R[mid] < t) k = mid + 1;
+          else hiK = mid;
+        }
         const s = (refCurve.cp[k] - refCurve.cp[k - 1]) / (R[k] - R[k - 1]);
         return refCurve.cp[k - 1] + s * (t - R[k - 1]);
       };

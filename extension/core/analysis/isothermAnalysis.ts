@@ -206,12 +206,22 @@ export function analyzeIsotherm(block: ParsedBlock, ctx: AnalysisContext): Analy
           uLog = Math.sqrt(Math.max(0, v));
         }
         const lawNote = `u(log10 τα) = ${Number(uLog.toPrecision(2))} from the VFT parameters' covariance, delta method`;
-        results.tau_alpha = budgeted(tau, 's', `VFT law of ${String(materialId)} (${vft.source}) at ${hold} K`, [{ source: 'VFT law', value: tau * Math.LN10 * uLog, note: lawNote }]);
+        // The hold's thermometer: d log10 τ / dT = −B/(T − T0)², so u(log10 τ) = B·u_T/(T − T0)²
+        // (about 0.1 decade for 0.5 K near Tg): calibration as in the other temperature figures.
+        const written = block.quantities.get('/temperature_calibration');
+        const uT = written?.value ?? DEFAULT_HOLD_CALIBRATION;
+        const uLogT = (vft.p.B * uT) / ((hold - vft.p.T0) * (hold - vft.p.T0));
+        const calibrationNote = `hold temperature ± ${uT} K${written ? '' : ' assumed (write temperature_calibration to change it)'}: u(log10 τα) = B·u_T/(T − T0)²`;
+        results.tau_alpha = budgeted(tau, 's', `VFT law of ${String(materialId)} (${vft.source}) at ${hold} K`, [
+          { source: 'VFT law', value: tau * Math.LN10 * uLog, note: lawNote },
+          { source: 'calibration', value: tau * Math.LN10 * uLogT, note: calibrationNote },
+        ]);
         const s = trans / tau;
         const uTrans = results.transformation_time.uncertainty;
         results.stability_ratio = budgeted(s, '1', `transformation_time / tau_alpha${bound}`, [
           { source: 'transformation time', value: uTrans !== undefined ? uTrans / tau : NaN, note: 'u(t_trans)/τα' },
           { source: 'VFT law', value: s * Math.LN10 * uLog, note: lawNote },
+          { source: 'calibration', value: s * Math.LN10 * uLogT, note: calibrationNote },
         ]);
         if (vft.range && (hold < vft.range[0] || hold > vft.range[1])) diagnostics.push(at(messages.isoTauExtrapolated(hold, vft.range[0], vft.range[1]), block.spanOf('/temperature')));
       }
@@ -219,6 +229,9 @@ export function analyzeIsotherm(block: ParsedBlock, ctx: AnalysisContext): Analy
   }
   return { results, diagnostics, figure };
 }
+
+/** Standard uncertainty of the hold temperature when `temperature_calibration` is not written, K. */
+const DEFAULT_HOLD_CALIBRATION = 0.5;
 
 /** Evaporation after the plateau, abrupt drops and a non-linear transformation. */
 function isothermChecks(block: ParsedBlock, t: Float64Array, h: Float64Array, fit: ThreeSegmentFit, lowerBound: boolean, diagnostics: Diagnostic[]): void {

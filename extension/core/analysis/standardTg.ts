@@ -68,7 +68,13 @@ export function standardTg(material: ParsedBlock, ctx: AnalysisContext, fragilit
     const sample = n > 1 ? points.reduce((s, p) => s + (p.tg - mean) ** 2, 0) / (n - 1) : 0;
     const terms: UncertaintyTerm[] = [
       { source: 'statistical', value: Math.sqrt(meanU2 / n), note: "the ramps' own uncertainties, √(Σu²)/n" },
-      { source: 'replicates', value: Math.sqrt(Math.max(0, sample - meanU2) / n), note: `scatter of the ${n} ramps beyond their own uncertainties, √((s² − mean u²)/n)` },
+      // Widened by t₀.₉₇₅(n − 1)/1.96 as the regression term below, so that ±2u keeps its meaning
+      // for a scatter estimated from few ramps.
+      {
+        source: 'replicates',
+        value: n > 1 ? (Math.sqrt(Math.max(0, sample - meanU2) / n) * t95(n - 1)) / 1.96 : 0,
+        note: `scatter of the ${n} ramps beyond their own uncertainties, √((s² − mean u²)/n) × t₀.₉₇₅(${n - 1})/1.96`,
+      },
       calibration,
     ];
     const q = Math.pow(10, points[0].logq);

@@ -117,5 +117,9 @@ export function fitTwoWindows(T: ArrayLike<number>, h: ArrayLike<number>, tgStar
     if (!wider.ok) return { ...f, curved: true };
     fit = f.glassShort ? { ...wider, glassShort: true } : wider;
   }
-  return fit;
+  // After the last widening, windows that still bend are said to.
+  const last: TwoWindowFit = fit;
+  const stillBends =
+    Math.abs(curvatureT(T, h, (x) => x <= last.glassWindow[1])) > CURVATURE_T || Math.abs(curvatureT(T, h, (x) => x >= last.liquidWindow[0])) > CURVATURE_T;
+  return stillBends ? { ...last, curved: true } : last;
 }
