@@ -47,6 +47,9 @@ describe('ramp analysis', () => {
     assert.ok(Math.abs(b.results.tonset.value - 326) < 0.3, `onset ${b.results.tonset.value}`);
     // The first point past 326 K leaves the exact VD line: 326.25 K.
     assert.equal(b.results.tonset_deviation.value, 326.25);
+    // Known to one row (0.25 K): a rectangular distribution of that width, 0.25/√12 K (GUM §4.3.7).
+    const resolution = b.results.tonset_deviation.budget?.find((t) => t.source === 'resolution');
+    assert.ok(resolution && Math.abs(resolution.value - 0.25 / Math.sqrt(12)) < 1e-12, JSON.stringify(b.results.tonset_deviation.budget));
     // Exact lines: moving the windows changes nothing, so the budget has no window term.
     assert.ok(!(b.results.tfictive.budget ?? []).some((t) => t.source === 'window' && t.value > 1e-9), JSON.stringify(b.results.tfictive.budget));
     // α at Tg: 0.02/101 and 0.07/101 [computed].

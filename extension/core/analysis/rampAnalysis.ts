@@ -540,7 +540,11 @@ function firstHeating(
     for (let i = 0; i < m; i++) {
       run = Math.abs(c.h[i] - predict(vd, c.T[i])) > 3 * sigma && c.T[i] > vd.xmin ? run + 1 : 0;
       if (run === 3 && i - 2 >= vdEnd - 1) {
-        results.tonset_deviation = budgeted(c.T[i - 2], 'K', 'first of 3 consecutive points more than 3σ from the as-deposited line (noise-sensitive; reported beside the extrapolated onset)', [calTerm]);
+        // Known to the row: the departure lies somewhere within the step before the first point
+        // found, a rectangular distribution of that width (GUM, JCGM 100:2008, §4.3.7).
+        const step = Math.abs(c.T[i - 2] - c.T[Math.max(0, i - 3)]);
+        const resolution = { source: 'resolution', value: step / Math.sqrt(12), note: `one row step (${Number(step.toPrecision(3))} K) as a rectangular distribution, width/√12` };
+        results.tonset_deviation = budgeted(c.T[i - 2], 'K', 'first of 3 consecutive points more than 3σ from the as-deposited line (noise-sensitive; reported beside the extrapolated onset)', [resolution, calTerm]);
         break;
       }
     }
