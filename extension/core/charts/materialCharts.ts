@@ -72,14 +72,7 @@ export function tsubSeriesSpec(material: string, report: NotebookReport, options
     colours.set(label, tsubRampColour(i, curves.length, look.theme));
     return { name: label, role: 'data', meaning: 'as-deposited', points: c.points };
   });
-  let lo = Infinity;
-  let hi = -Infinity;
-  for (const c of curves) {
-    for (const p of c.points) {
-      lo = Math.min(lo, p[0]);
-      hi = Math.max(hi, p[0]);
-    }
-  }
+  const [lo, hi] = xExtent(curves);
   series.push({ name: 'supercooled liquid (h = h_liquid)', role: 'line', meaning: 'reference-line', points: [[lo, 1], [hi, 1]] });
   const figure: FigureData = { xTitle: 'T / K', yTitle: 'h / h_liquid(T)', series, markers: [] };
   return { name, title, spec: seriesChartSpec(title, figure, look, undefined, (s) => colours.get(s.name)) };
@@ -152,15 +145,21 @@ export function relaxationMapSpec(material: string, report: NotebookReport, opti
     markers.push({ label: `Tg(100 s) ${kelvin(tg)}`, x: 1000 / tg });
   }
   if (holds.length > 0) series.push({ name: 'τα at the isotherm holds', role: 'data', meaning: 'supercooled-liquid', points: holds });
-  let xlo = Infinity;
-  let xhi = -Infinity;
-  for (const s of series) {
-    for (const p of s.points) {
-      xlo = Math.min(xlo, p[0]);
-      xhi = Math.max(xhi, p[0]);
-    }
-  }
+  const [xlo, xhi] = xExtent(series);
   if (Number.isFinite(xlo) && xhi > xlo) series.push({ name: 'τ = 100 s', role: 'line', meaning: 'reference-line', points: [[xlo, 2], [xhi, 2]] });
   const figure: FigureData = { xTitle: '1000 K / T', yTitle: 'log10(τ / s)', series, markers };
   return { name, title, spec: seriesChartSpec(title, figure, look) };
+}
+
+/** The smallest and largest x of the points of every curve (±Infinity when there are none). */
+function xExtent(curves: ReadonlyArray<{ readonly points: ReadonlyArray<readonly number[]> }>): [number, number] {
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (const c of curves) {
+    for (const p of c.points) {
+      lo = Math.min(lo, p[0]);
+      hi = Math.max(hi, p[0]);
+    }
+  }
+  return [lo, hi];
 }
