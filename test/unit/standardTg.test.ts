@@ -37,6 +37,19 @@ describe('standard Tg of a material', () => {
     assert.ok(b.diagnostics.some((d) => d.code === 'material.fragility-conversion'));
   });
 
+  it('carries the uncertainty of the fragility into a single-rate conversion', () => {
+    // Tg(10) = Tg(q) + (Tg/m)·log10(10/q), so |∂Tg(10)/∂m| = (Tg/m²)·log10(10/q) (first-order
+    // propagation, GUM, JCGM 100:2008, §5.1.3) [computed]: at Tg(1) = 311.3 K the term is
+    // 311.3/m²·u(m) for the m and u(m) the material reports.
+    const vft = 'vft:\n  log10_tau0: -14\n  B: 1008 ± 40 K\n  T0: 252 ± 3 K\n';
+    const b = materialResults(MATERIAL_BLOCK(315, vft), [[1, 311.3]]);
+    const m = b.results.fragility;
+    assert.ok(m.uncertainty! > 0, 'the stated ± give the fragility an uncertainty');
+    const term = b.results.standard_tg.budget?.find((t) => t.source === 'fragility');
+    assert.ok(term, JSON.stringify(b.results.standard_tg.budget));
+    assert.ok(Math.abs(term.value - (311.3 / m.value ** 2) * m.uncertainty!) < 1e-6 * term.value, `${term.value}`);
+  });
+
   it('flags extrapolation and few rates', () => {
     const b = materialResults(MATERIAL_BLOCK(315), [[0.1, 308.0], [1, 311.3]]);
     const codes = b.diagnostics.map((d) => d.code);

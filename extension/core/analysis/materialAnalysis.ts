@@ -96,7 +96,7 @@ export function analyzeMaterial(block: ParsedBlock, ctx: AnalysisContext): Analy
       }
     }
   }
-  const std = standardTg(block, ctx, results.fragility?.value, diagnostics);
+  const std = standardTg(block, ctx, results.fragility, diagnostics);
   if (std) {
     results.standard_tg = std;
     const stated = statedTg(block);

@@ -33,7 +33,8 @@ interface RatePoint {
   readonly cal: number;
 }
 
-export function standardTg(material: ParsedBlock, ctx: AnalysisContext, fragility: number | undefined, diagnostics: Diagnostic[]): ResultValue | undefined {
+export function standardTg(material: ParsedBlock, ctx: AnalysisContext, fragilityResult: ResultValue | undefined, diagnostics: Diagnostic[]): ResultValue | undefined {
+  const fragility = fragilityResult?.value;
   if (material.id === null) return undefined;
   const points: RatePoint[] = [];
   for (const film of ctx.referrers('deposition', 'material', material.id)) {
@@ -85,6 +86,11 @@ export function standardTg(material: ParsedBlock, ctx: AnalysisContext, fragilit
     }
     diagnostics.push(at(messages.fragilityConversion(q), span));
     const value = mean + (mean / fragility) * (x0 - points[0].logq);
+    // The conversion's sensitivity to m: |∂Tg/∂m| = (Tg/m²)·|log10(q_ref/q)| (GUM §5.1.3).
+    const um = fragilityResult?.uncertainty;
+    if (um !== undefined && um > 0) {
+      terms.push({ source: 'fragility', value: (mean / (fragility * fragility)) * Math.abs(x0 - points[0].logq) * um, note: `u(m) = ${Number(um.toPrecision(2))} through (Tg/m²)·|log10(10 K/min / q)|` });
+    }
     return budgeted(value, 'K', `fragility-based conversion of the mean of ${n} ramp${n === 1 ? '' : 's'} from ${q} K/min with m = ${Number(fragility.toPrecision(4))}`, terms);
   }
 
