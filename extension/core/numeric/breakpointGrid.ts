@@ -99,6 +99,22 @@ export function searchBreakpoints(t: ArrayLike<number>, h: ArrayLike<number>, ma
     after.push(j);
   }
   const G = cand.length;
+  // Per candidate c, the sums of the hinge column P = max(u − c, 0) over the rows after it: ΣP,
+  // Σu·P, ΣP², ΣP·y, made once for both breakpoints (u is the scaled time, y the centred h).
+  const cs = new Float64Array(G);
+  const sP = new Float64Array(G);
+  const sUP = new Float64Array(G);
+  const sPP = new Float64Array(G);
+  const sPY = new Float64Array(G);
+  for (let k = 0; k < G; k++) {
+    const c = (cand[k] - mid) / scale;
+    const jk = after[k];
+    cs[k] = c;
+    sP[k] = U[jk] - c * N[jk];
+    sUP[k] = Q[jk] - c * U[jk];
+    sPP[k] = Q[jk] - 2 * c * U[jk] + c * c * N[jk];
+    sPY[k] = UY[jk] - c * Y[jk];
+  }
   const M = new Float64Array(16);
   const r = new Float64Array(4);
   const x = new Float64Array(4);
@@ -106,41 +122,28 @@ export function searchBreakpoints(t: ArrayLike<number>, h: ArrayLike<number>, ma
   for (let a = 0; a < G; a++) {
     const j1 = after[a];
     if (j1 < minEach) continue;
-    const c1 = (cand[a] - mid) / scale;
-    const n1 = N[j1];
-    const u1 = U[j1];
-    const q1 = Q[j1];
-    const sP1 = u1 - c1 * n1;
-    const sUP1 = q1 - c1 * u1;
-    const sP1P1 = q1 - 2 * c1 * u1 + c1 * c1 * n1;
-    const sP1Y = UY[j1] - c1 * Y[j1];
+    const c1 = cs[a];
     for (let b = a + 1; b < G; b++) {
       const j2 = after[b];
       if (j2 - j1 < minEach) continue;
       if (n - j2 < minEach) break;
-      const c2 = (cand[b] - mid) / scale;
-      const n2 = N[j2];
-      const u2 = U[j2];
-      const q2 = Q[j2];
-      const sP2 = u2 - c2 * n2;
-      const sUP2 = q2 - c2 * u2;
-      const sP2P2 = q2 - 2 * c2 * u2 + c2 * c2 * n2;
-      const sP1P2 = q2 - (c1 + c2) * u2 + c1 * c2 * n2;
-      const sP2Y = UY[j2] - c2 * Y[j2];
+      const c2 = cs[b];
+      // Σ P₁·P₂ over the rows after the later breakpoint, where both columns are non-zero.
+      const sP1P2 = Q[j2] - (c1 + c2) * U[j2] + c1 * c2 * N[j2];
       M[0] = N[0];
       M[1] = M[4] = U[0];
-      M[2] = M[8] = sP1;
-      M[3] = M[12] = sP2;
+      M[2] = M[8] = sP[a];
+      M[3] = M[12] = sP[b];
       M[5] = Q[0];
-      M[6] = M[9] = sUP1;
-      M[7] = M[13] = sUP2;
-      M[10] = sP1P1;
+      M[6] = M[9] = sUP[a];
+      M[7] = M[13] = sUP[b];
+      M[10] = sPP[a];
       M[11] = M[14] = sP1P2;
-      M[15] = sP2P2;
+      M[15] = sPP[b];
       r[0] = Y[0];
       r[1] = UY[0];
-      r[2] = sP1Y;
-      r[3] = sP2Y;
+      r[2] = sPY[a];
+      r[3] = sPY[b];
       if (!cholesky4(M, r, x)) continue;
       // The middle segment is the transformation: steeper than the plateaus on either side, and
       // changing h more than the first one does.

@@ -64,11 +64,10 @@ export function timeBracketHtml(interval: readonly [number, number]): string {
   return `${end(interval[0])} – ${end(interval[1])}`;
 }
 
-/** Results whose interval is a bracket of two methods rather than a 95 % interval. */
-const BRACKETS = new Set(['equivalent_aging_time']);
+/** Is the result's interval a bracket between methods rather than a 95 % interval (the catalogue says)? */
 
 export function isBracket(name: string): boolean {
-  return BRACKETS.has(name);
+  return catalogueEntry(name)?.bracket === true;
 }
 
 /** What a result cell shows: the main text, and a second line (°C, the time in s) or ''. */
