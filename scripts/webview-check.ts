@@ -18,6 +18,7 @@ import * as path from 'node:path';
 import { execFileSync } from 'node:child_process';
 import { chromium, type Page } from 'playwright-core';
 import { figureSpec, stabilityMapSpecs, toVega } from '../extension/core/charts/index.js';
+import { SURFACE } from '../extension/core/charts/tokens.js';
 import { LineIndex, SUMMARY_TABLE_COLUMNS, summarise, summaryCell, type BlockReport } from '../extension/core/index.js';
 import type { BlockChart, SummaryResult } from '../extension/protocol/server.js';
 import type { ChartTheme, FromWebview, ToWebview } from '../extension/protocol/webview.js';
@@ -295,7 +296,8 @@ async function chartsRun(browser: import('playwright-core').Browser, origin: str
   check((await page.locator('#injected, .card i, .card b, .card script').count()) === 0, `${label}: markup in titles and figures stays text`);
   check((await page.getByText('ramp <img src=x id=injected> & "quotes"').count()) === 1, `${label}: the title with markup is shown as written`);
   check(JSON.stringify(await page.evaluate('window.__state')) === JSON.stringify({ uri: charts.uri, view: 'charts' }), `${label}: keeps the uri and view in the webview state`);
-  const bg = forceLight ? '#ffffff' : THEMES[themeName].vars['--vscode-editor-background'];
+  // Light and dark editors draw charts on Vitrine's own sheet colour; high contrast keeps the editor's.
+  const bg = forceLight ? SURFACE.light.sheet : themeName === 'light' || themeName === 'dark' ? SURFACE[themeName].sheet : THEMES[themeName].vars['--vscode-editor-background'];
   const firstBg = await chartBackground(page);
   check(firstBg.toLowerCase() === bg, `${label}: chart background ${firstBg} is ${bg}`);
 
@@ -357,7 +359,7 @@ async function themeSwitchRun(browser: import('playwright-core').Browser, origin
   await post(page, { type: 'theme', theme: 'light', forceLight: false });
   await settle(page);
   const fill = await chartBackground(page);
-  check(fill === '#ffffff', `theme switch: charts redrawn on the light background (${fill})`);
+  check(fill === SURFACE.light.sheet, `theme switch: charts redrawn on the light background (${fill})`);
   check((await page.locator('.chart svg').count()) === charts.blocks.filter((b) => b.vega).length - 1, 'theme switch: every chart drawn again');
   const heightAfter = await page.locator('.chart').first().evaluate((el) => el.offsetHeight);
   check(heightAfter === heightBefore, `theme switch: a chart keeps its height (${heightBefore} → ${heightAfter} px)`);

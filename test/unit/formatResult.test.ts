@@ -159,6 +159,8 @@ describe('exponential notation', () => {
   it('shares the exponent of value and uncertainty', () => {
     assert.equal(formatMeasurement(3126.27787503, 4.5115278468, EXP3), '(3.1263 ± 0.0045)e+3');
     assert.equal(formatValue(3126.27787503, 4.5115278468, EXP3), '3.1263e+3');
+    // An exponent of 0 is left out (GUM §7.2.2 writes a value and its uncertainty with one factor of ten or none).
+    assert.equal(formatMeasurement(1.6303862454, 0.3725866, EXP3), '1.63 ± 0.37');
     assert.equal(formatUncertainty(3126.27787503, 4.5115278468, EXP3), '4.5e+0');
     assert.equal(formatMeasurement(0.000162836569472, 6.95241378583e-7, EXP3), '(1.6284 ± 0.0070)e-4');
     assert.equal(formatMeasurement(999.6, 0.35, EXP3), '(9.9960 ± 0.0035)e+2');

@@ -151,6 +151,8 @@ function parts(value: number, uncertainty: number | undefined, format: NumberFor
   const sharedValue = parseExponential(v).exponent === shared ? mantissa : fixedAt(value / 10 ** shared, place - shared);
   const um = placeDigits(false, u2.digits, place - shared);
   const ut = exponential(u, 1);
+  // A shared exponent of 0 is no exponent: `1.63 ± 0.37`, not `(1.63 ± 0.37)e+0`.
+  if (shared === 0) return { value: sharedValue, uncertainty: ut, measurement: `${sharedValue} ± ${um}`, place };
   return { value: `${sharedValue}${exponentSuffix(shared)}`, uncertainty: ut, measurement: `(${sharedValue} ± ${um})${exponentSuffix(shared)}`, place };
 }
 
