@@ -1,6 +1,6 @@
 import assert from 'node:assert/strict';
 import fc from 'fast-check';
-import { parseTable } from '../../extension/core/parse/table.js';
+import { parseTable, plainNumber } from '../../extension/core/parse/table.js';
 import { propertyOptions } from '../support/propertyOptions.js';
 
 // Rows of a data table, as instruments and people write them: plain numbers, numbers with spaces,
@@ -64,5 +64,33 @@ describe('data table rows against a plain reference reader', () => {
       ),
       propertyOptions(400, 20261202),
     );
+  });
+});
+
+// A cell's number is read from its characters, without a string, when its digits and power of ten
+// allow one exact division or multiplication (Clinger, "How to read floating point numbers
+// accurately", PLDI 1990); the value must then be exactly the one ECMAScript's Number reads.
+describe('a plain number read from its characters', () => {
+  const digits = (min: number, max: number) => fc.array(fc.constantFrom(...'0123456789'), { minLength: min, maxLength: max }).map((d) => d.join(''));
+  const decimal = fc
+    .tuple(fc.constantFrom('', '+', '-'), digits(0, 18), fc.boolean(), digits(0, 18), fc.option(fc.tuple(fc.constantFrom('e', 'E'), fc.constantFrom('', '+', '-'), digits(1, 3))))
+    .map(([sign, whole, point, fraction, exp]) => `${sign}${whole}${point ? '.' : ''}${point ? fraction : ''}${exp ? exp.join('') : ''}`);
+
+  it('is the value Number reads, or NaN when it leaves the cell to Number', () => {
+    fc.assert(
+      fc.property(decimal, (text) => {
+        const v = plainNumber(text, 0, text.length);
+        if (Number.isNaN(v)) return;
+        assert.ok(DECIMAL.test(text), text);
+        assert.ok(Object.is(v, Number(text)), `${text}: ${v} against ${Number(text)}`);
+      }),
+      propertyOptions(20000, 20261203),
+    );
+  });
+
+  it('reads the numbers instruments write without falling back', () => {
+    for (const text of ['312.4567', '-0.0001', '1.234e-7', '400.0123', '6.02E+3', '0', '-0', '.5', '12.']) {
+      assert.ok(Object.is(plainNumber(text, 0, text.length), Number(text)), text);
+    }
   });
 });

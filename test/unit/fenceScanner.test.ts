@@ -78,7 +78,7 @@ describe('scanFencedBlocks', () => {
     const text = '> ```material M-1\n> name: x\n> tg: 300 K\n> ```\n';
     const [b] = scanFencedBlocks(text);
     assert.equal(b.body, 'name: x\ntg: 300 K');
-    assert.equal(text.slice(b.bodyLines[1].start, b.bodyLines[1].end), 'tg: 300 K');
+    assert.equal(text.slice(b.bodyLines.start(1), b.bodyLines.end(1)), 'tg: 300 K');
   });
 
   it('keeps a fence inside a list item, indented body removed', () => {

@@ -113,7 +113,17 @@ function chooseGap(T: ArrayLike<number>, tg: number, scale: number): number {
   return 0;
 }
 
-export function coolingTg(input: CoolingInput): CoolingFigures | CoolingFailure {
+/**
+ * What `coolingTg` works out from the data alone, before the gap: filled on the first call and
+ * read by later calls on the same T and h (the gap variants of the window budget).
+ */
+export interface CoolingMemo {
+  hinge?: ReturnType<typeof fitHinge>;
+  /** The larger |t| of the quadratic term on either side of the breakpoint. */
+  bend?: number;
+}
+
+export function coolingTg(input: CoolingInput, memo: CoolingMemo = {}): CoolingFigures | CoolingFailure {
   const { T, h } = input;
   const scale = input.gapScale ?? 1;
   const warnings: Array<{ message: Message; at: 'windows' | 'segment' | 'low' }> = [];
@@ -147,7 +157,7 @@ export function coolingTg(input: CoolingInput): CoolingFigures | CoolingFailure 
     };
   }
 
-  const hinge = fitHinge(T, h);
+  const hinge = (memo.hinge ??= fitHinge(T, h));
   if (!hinge.ok) return { ok: false, message: messages.rampTooFewPoints('cooling segment'), at: 'segment' };
   const f = hinge.fit;
   if (f.pTransition > 0.05) return { ok: false, message: messages.rampNoTransition(f.pTransition), at: 'segment' };
@@ -162,7 +172,7 @@ export function coolingTg(input: CoolingInput): CoolingFigures | CoolingFailure 
   // Curvature near the breakpoint: correlated residuals, a side that bends, or hinge slopes that
   // disagree with the window slopes. (The breakpoint's movement when the span is trimmed enters the
   // window term: the analysis reruns with 5 K trimmed from both ends.)
-  const bend = Math.max(Math.abs(curvatureT(T, h, (x) => x <= f.breakpoint)), Math.abs(curvatureT(T, h, (x) => x >= f.breakpoint)));
+  const bend = (memo.bend ??= Math.max(Math.abs(curvatureT(T, h, -Infinity, f.breakpoint)), Math.abs(curvatureT(T, h, f.breakpoint, Infinity))));
   const m = input.fragility !== null && input.fragility > 0 ? input.fragility : DEFAULT_FRAGILITY;
   const delta0 = (2 * f.breakpoint) / m;
   const w = fitTwoWindows(T, h, f.breakpoint, delta0 * scale);

@@ -43,7 +43,7 @@ import { filmOf, materialOf, metadataWindow as window } from './blockLinks.js';
 import { materialVft, statedTg } from './materialAnalysis.js';
 import { vftFragility } from './vft.js';
 import { segmentScan, type Segment } from './segments.js';
-import { coolingTg } from './coolingTg.js';
+import { coolingTg, type CoolingFailure, type CoolingFigures, type CoolingMemo } from './coolingTg.js';
 import { substrateTemperatureOf } from './substrateTemperature.js';
 
 /** Rows below which no figure can be computed: the first heating needs 10, Tg 8 on each side of it. */
@@ -97,6 +97,17 @@ interface RampChoices {
 
 const VARIANTS: readonly RampChoices[] = [{ gapScale: 1.5 }, { gapScale: 0.7 }, { vdTrim: 5 }, { coolTrim: 5 }];
 
+/**
+ * Work the nominal analysis shares with its window variants (same block, same data): the rows
+ * kept and the segments, and the cooling construction by cooling trim and gap scale; the hinge
+ * stage of a cooling stretch is shared by the gap variants, which only move the windows.
+ */
+interface RampMemo {
+  prepared?: { readonly curve: Curve; readonly time: Float64Array | null; readonly rows: Int32Array | null; readonly dropped: number; readonly firstDropped: number; readonly segments: readonly Segment[] };
+  readonly cooling: Map<string, CoolingFigures | CoolingFailure>;
+  readonly stages: Map<number, CoolingMemo>;
+}
+
 /** The figures whose window sensitivity enters their budget. */
 const SENSITIVE = ['tg', 'alpha_glass', 'alpha_liquid', 'tonset', 'tfictive', 'density_gain'] as const;
 
@@ -108,13 +119,14 @@ const SENSITIVE = ['tg', 'alpha_glass', 'alpha_liquid', 'tonset', 'tfictive', 'd
  * is taken as the half-width of a rectangular distribution (GUM §4.3.7), u = a/√3.
  */
 export function analyzeRamp(block: ParsedBlock, ctx: AnalysisContext): Analysis {
-  const nominal = rampDetails(block, ctx).analysis;
+  const memo: RampMemo = { cooling: new Map(), stages: new Map() };
+  const nominal = rampDetails(block, ctx, {}, memo).analysis;
   const names = SENSITIVE.filter((n) => nominal.results[n]);
   if (names.length === 0) return nominal;
   const spread = new Map<string, number>();
   for (const choice of VARIANTS) {
     ctx.checkCancelled();
-    const r = rampDetails(block, ctx, { ...choice, figuresOnly: true }).analysis.results;
+    const r = rampDetails(block, ctx, { ...choice, figuresOnly: true }, memo).analysis.results;
     for (const n of names) {
       const v = r[n];
       if (v === undefined) continue;
@@ -160,7 +172,7 @@ function fragilityOf(block: ParsedBlock, ctx: AnalysisContext): number | null {
 }
 
 /** The analysis and the fitted lines (the charts draw them). */
-export function rampDetails(block: ParsedBlock, ctx: AnalysisContext, choices: RampChoices = {}): { analysis: Analysis; lines: RampLines } {
+export function rampDetails(block: ParsedBlock, ctx: AnalysisContext, choices: RampChoices = {}, memo?: RampMemo): { analysis: Analysis; lines: RampLines } {
   const diagnostics: Diagnostic[] = [];
   const results: Record<string, ResultValue> = {};
   const empty = { analysis: { results, diagnostics }, lines: { segments: [] } };
@@ -185,16 +197,12 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext, choices: R
       return empty;
     }
   }
-  const timeCol = table.byRole.get('time')?.values ?? null;
-  const kept = keptRows(Tcol.values, hcol.values, timeCol);
-  if (kept.dropped > 0 && !choices.figuresOnly) note(messages.rampDuplicateRows(kept.dropped), block.rowSpan(kept.firstDropped));
-  const rows = kept.rows;
-  const pick = (v: Float64Array): Float64Array => (rows ? Float64Array.from(rows, (r) => v[r]) : v);
-  const curve: Curve = { T: pick(Tcol.values), h: pick(hcol.values) };
-  const time = timeCol ? pick(timeCol) : null;
-  const rowSpan = (i: number): Span => block.rowSpan(rows ? rows[i] : i);
   const nominal = block.quantities.get('/rate')?.value ?? null;
-  const segments = segmentScan(curve.T, time, nominal);
+  const prepared = memo?.prepared ?? prepare(Tcol.values, hcol.values, table.byRole.get('time')?.values ?? null, nominal);
+  if (memo) memo.prepared = prepared;
+  const { curve, time, rows, segments } = prepared;
+  if (prepared.dropped > 0 && !choices.figuresOnly) note(messages.rampDuplicateRows(prepared.dropped), block.rowSpan(prepared.firstDropped));
+  const rowSpan = (i: number): Span => block.rowSpan(rows ? rows[i] : i);
   const lines: { -readonly [K in keyof RampLines]: RampLines[K] } = { segments };
 
   if (segments.every((s) => s.direction === 'isothermal')) {
@@ -255,13 +263,25 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext, choices: R
     if (choices.coolTrim) {
       const lo = curve.T[lowest] + choices.coolTrim;
       const hi = curve.T[highest] - choices.coolTrim;
-      const keep: number[] = [];
-      c.T.forEach((T, i) => {
-        if (T >= lo && T <= hi) keep.push(i);
-      });
-      c = { T: Float64Array.from(keep, (i) => c.T[i]), h: Float64Array.from(keep, (i) => c.h[i]) };
+      const T = new Float64Array(c.T.length);
+      const h = new Float64Array(c.T.length);
+      let m = 0;
+      for (let i = 0; i < c.T.length; i++) {
+        if (c.T[i] >= lo && c.T[i] <= hi) {
+          T[m] = c.T[i];
+          h[m++] = c.h[i];
+        }
+      }
+      c = { T: T.subarray(0, m), h: h.subarray(0, m) };
     }
-    const fig = coolingTg({ T: c.T, h: c.h, glassWindow: glassW, liquidWindow: liquidW, fragility: fragilityOf(block, ctx), gapScale: choices.gapScale });
+    const variant = `${choices.coolTrim ?? 0}|${choices.gapScale ?? 1}`;
+    let fig = memo?.cooling.get(variant);
+    if (!fig) {
+      let stage = memo?.stages.get(choices.coolTrim ?? 0);
+      if (memo && !stage) memo.stages.set(choices.coolTrim ?? 0, (stage = {}));
+      fig = coolingTg({ T: c.T, h: c.h, glassWindow: glassW, liquidWindow: liquidW, fragility: fragilityOf(block, ctx), gapScale: choices.gapScale }, stage);
+      memo?.cooling.set(variant, fig);
+    }
     const place = (where: 'segment' | 'low' | 'high' | 'windows'): Span =>
       where === 'windows' ? block.spanOf('/windows') : rowSpan(where === 'low' ? lowest : where === 'high' ? highest : cooling.start);
     if (!fig.ok) {
@@ -306,6 +326,16 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext, choices: R
     return hcol.role === 'volume' ? { ...f, measured: 'volume' } : f;
   };
   return { analysis: { results, diagnostics, figure }, lines };
+}
+
+/** The rows kept (exact repeats left out), as a curve, and the scan's segments. */
+function prepare(T: Float64Array, h: Float64Array, timeCol: Float64Array | null, rate: number | null): NonNullable<RampMemo['prepared']> {
+  const kept = keptRows(T, h, timeCol);
+  const rows = kept.rows;
+  const pick = (v: Float64Array): Float64Array => (rows ? Float64Array.from(rows, (r) => v[r]) : v);
+  const curve: Curve = { T: pick(T), h: pick(h) };
+  const time = timeCol ? pick(timeCol) : null;
+  return { curve, time, rows, dropped: kept.dropped, firstDropped: kept.firstDropped, segments: segmentScan(curve.T, time, rate) };
 }
 
 /**

@@ -18,7 +18,7 @@ import type { FencedBlock } from '../scan/fenceScanner.js';
 import { quantityFields, type QuantityField } from '../schema/quantityFields.js';
 import { SCHEMAS } from '../schema/schemas.js';
 import { recommendedKeys, validateMetadata } from '../schema/validator.js';
-import { BodyMap } from '../text/bodyMap.js';
+import { BodyMap, type BodyLineList } from '../text/bodyMap.js';
 import { hashText } from '../text/hash.js';
 import { resolveNotebookPath } from '../text/notebookPath.js';
 import { toOneBasedPoint, type Span } from '../text/positions.js';
@@ -157,16 +157,11 @@ function yamlScalar(text: string): string {
   return /^[^\s#&*!|>'"%@`{}[\],?:-][^#]*$/.test(text) && !/:\s|\s$/.test(text) ? text : JSON.stringify(text);
 }
 
-/** Rebases a fenced block so that its first fence character is offset 0. */
+/** Rebases a fenced block so that its first fence character is offset 0 (its body lines are read through a BodyMap that shifts them). */
 function rebase(block: FencedBlock): FencedBlock {
   const d = block.span.start;
   const s = (x: Span): Span => ({ start: x.start - d, end: x.end - d });
-  return {
-    ...block,
-    span: s(block.span),
-    infoSpan: s(block.infoSpan),
-    bodyLines: block.bodyLines.map((l) => ({ start: l.start - d, end: l.end - d, pad: l.pad })),
-  };
+  return { ...block, span: s(block.span), infoSpan: s(block.infoSpan) };
 }
 
 function rebaseHeader(header: BlockHeader, d: number): BlockHeader {
@@ -206,8 +201,22 @@ export interface ParseInput {
  */
 export function blockTextKey(file: string, source: string, fence: FencedBlock): string {
   const d = fence.span.start;
-  const layout = [fence.infoSpan.start - d, ...fence.bodyLines.map((l) => `${l.start - d}.${l.pad}`)].join(',');
+  const lines = fence.bodyLines;
+  let layout = `${fence.infoSpan.start - d}`;
+  if (contiguousLines(lines, source, d)) {
+    // Each line starts after the line break of the one before: the text, the first line's start and the count fix them all.
+    if (lines.length > 0) layout += `;${lines.start(0) - d}+${lines.length}`;
+  } else for (let i = 0; i < lines.length; i++) layout += `,${lines.start(i) - d}.${lines.pad(i)}`;
   return hashText(`${file}\u0000${source}\u0000${layout}`);
+}
+
+/** Do the body lines follow each other directly, each after a line feed, with no pad? */
+function contiguousLines(lines: BodyLineList, source: string, d: number): boolean {
+  for (let i = 0; i < lines.length; i++) {
+    if (lines.pad(i) !== 0) return false;
+    if (i > 0 && (lines.start(i) !== lines.end(i - 1) + 1 || source.charCodeAt(lines.end(i - 1) - d) !== 10)) return false;
+  }
+  return true;
 }
 
 /** `line:column` as people read it, from 0-based line and character. */
@@ -232,7 +241,7 @@ export function parseBlock(input: ParseInput, data: DataTableSource): ParsedBloc
   if (header.extra) push(messages.blockExtraInfo(header.extra.text), header.extra.span);
 
   // Body: metadata, then optionally `---` and a table.
-  const map = new BodyMap(fence.bodyLines, fence.infoSpan.end);
+  const map = new BodyMap(fence.bodyLines, fence.infoSpan.end, input.fence.span.start);
   const bodyLines = fence.body.split('\n');
   let separator = -1;
   for (let i = 0; i < bodyLines.length; i++) {

@@ -1,5 +1,5 @@
 /**
- * Curvature of a stretch of data that should be straight: the t statistic of the quadratic
+ * Curvature of a stretch of data that should be straight (the points with lo ≤ x ≤ hi): the t statistic of the quadratic
  * coefficient of y = a + b·u + c·(u² − mean u²), u = x − mean x, fitted by least squares with the
  * regressors centred (the classical test for lack of linearity by a quadratic term; Draper &
  * Smith, Applied Regression Analysis, 3rd ed. (1998), §2.4 and §12.2). |t| above about 3 says the
@@ -8,12 +8,12 @@
  * Policy: fewer than 5 points, or points that do not determine a parabola, give t = 0 (no
  * evidence of curvature). Never throws.
  */
-export function curvatureT(x: ArrayLike<number>, y: ArrayLike<number>, keep: (x: number) => boolean): number {
+export function curvatureT(x: ArrayLike<number>, y: ArrayLike<number>, lo: number, hi: number): number {
   let n = 0;
   let mx = 0;
   let my = 0;
   for (let i = 0; i < x.length; i++) {
-    if (!keep(x[i])) continue;
+    if (!(x[i] >= lo && x[i] <= hi)) continue;
     n++;
     mx += x[i];
     my += y[i];
@@ -22,7 +22,7 @@ export function curvatureT(x: ArrayLike<number>, y: ArrayLike<number>, keep: (x:
   mx /= n;
   my /= n;
   let muu = 0;
-  for (let i = 0; i < x.length; i++) if (keep(x[i])) muu += (x[i] - mx) ** 2;
+  for (let i = 0; i < x.length; i++) if (x[i] >= lo && x[i] <= hi) muu += (x[i] - mx) ** 2;
   muu /= n;
   // Normal equations of the centred regressors u and v = u² − mean u² (y centred too).
   let suu = 0;
@@ -32,7 +32,7 @@ export function curvatureT(x: ArrayLike<number>, y: ArrayLike<number>, keep: (x:
   let svy = 0;
   let syy = 0;
   for (let i = 0; i < x.length; i++) {
-    if (!keep(x[i])) continue;
+    if (!(x[i] >= lo && x[i] <= hi)) continue;
     const u = x[i] - mx;
     const v = u * u - muu;
     const yc = y[i] - my;

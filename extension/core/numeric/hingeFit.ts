@@ -81,21 +81,52 @@ class PrefixSums {
   }
 }
 
-/** SSE and coefficients of a separate line over sorted indices [a, b). */
-function lineOver(p: PrefixSums, a: number, b: number): { sse: number; slope: number; intercept: number } | null {
+/** Coefficients of a line: the separate fits of a split, written into by `lineOver`. */
+interface LineCoefficients {
+  sse: number;
+  slope: number;
+  intercept: number;
+}
+
+/** Fits a separate line over sorted indices [a, b) into `out`; false when it has no slope. */
+function lineOver(p: PrefixSums, a: number, b: number, out: LineCoefficients): boolean {
   const m = b - a;
-  if (m < 2) return null;
+  if (m < 2) return false;
   const sx = p.sx[b] - p.sx[a];
   const sy = p.sy[b] - p.sy[a];
   const cxx = p.sxx[b] - p.sxx[a] - (sx * sx) / m;
   const cxy = p.sxy[b] - p.sxy[a] - (sx * sy) / m;
   const cyy = p.syy[b] - p.syy[a] - (sy * sy) / m;
-  if (!(cxx > 0)) return null;
-  const slope = cxy / cxx;
-  return { sse: Math.max(0, cyy - slope * cxy), slope, intercept: sy / m - (slope * sx) / m };
+  if (!(cxx > 0)) return false;
+  out.slope = cxy / cxx;
+  out.sse = Math.max(0, cyy - out.slope * cxy);
+  out.intercept = sy / m - (out.slope * sx) / m;
+  return true;
 }
 
-/** Constrained hinge fit with the joint at tb, k = number of points with x ≤ tb. */
+/** SSE of the constrained hinge fit with the joint at tb, k = number of points with x ≤ tb (Infinity when singular). */
+function hingeSse(p: PrefixSums, tb: number, k: number): number {
+  const n = p.n;
+  const sxL = p.sx[k];
+  const sxR = p.sx[n] - sxL;
+  const nR = n - k;
+  const su = sxL - k * tb;
+  const sv = sxR - nR * tb;
+  const suu = p.sxx[k] - 2 * tb * sxL + k * tb * tb;
+  const svv = p.sxx[n] - p.sxx[k] - 2 * tb * sxR + nR * tb * tb;
+  if (!(suu > 0) || !(svv > 0)) return Infinity;
+  const d = n - (su * su) / suu - (sv * sv) / svv;
+  if (!(Math.abs(d) > 0)) return Infinity;
+  const sy = p.sy[n];
+  const suy = p.sxy[k] - tb * p.sy[k];
+  const svy = p.sxy[n] - p.sxy[k] - tb * (p.sy[n] - p.sy[k]);
+  const c = (sy - (su * suy) / suu - (sv * svy) / svv) / d;
+  const sg = (suy - su * c) / suu;
+  const sl = (svy - sv * c) / svv;
+  return Math.max(0, p.syy[n] - (c * sy + sg * suy + sl * svy));
+}
+
+/** Constrained hinge fit with the joint at tb, k = number of points with x ≤ tb, with the inverse of its normal matrix. */
 function hingeAt(p: PrefixSums, tb: number, k: number): { sse: number; c: number; sg: number; sl: number; inv: number[][] } | null {
   const n = p.n;
   const sxL = p.sx[k];
@@ -172,6 +203,20 @@ function fullCovariance(p: PrefixSums, tb: number, k: number, sg: number, sl: nu
   return inv[1][1] > 0 && inv[2][2] > 0 ? inv : null;
 }
 
+/** The order that sorts x ascending: null when it already is, 'reversed' when it descends, else the indices. */
+function sortedOrder(x: ArrayLike<number>): Int32Array | 'reversed' | null {
+  let ascending = true;
+  let descending = true;
+  for (let i = 1; i < x.length && (ascending || descending); i++) {
+    if (x[i] < x[i - 1]) ascending = false;
+    if (x[i] >= x[i - 1]) descending = false;
+  }
+  // Ties keep their order, as a stable sort would (a reversed run may have none).
+  if (ascending) return null;
+  if (descending) return 'reversed';
+  return Int32Array.from({ length: x.length }, (_, i) => i).sort((a, b) => x[a] - x[b] || a - b);
+}
+
 function countAtOrBelow(x: Float64Array, v: number): number {
   let lo = 0;
   let hi = x.length;
@@ -188,7 +233,6 @@ export function fitHinge(xIn: ArrayLike<number>, yIn: ArrayLike<number>, options
   const minSpan = options.minSpan ?? 10;
   const n = xIn.length;
   if (n < 2 * nMin || n < 5) return { ok: false, reason: 'too-few-points' };
-  const order = Array.from({ length: n }, (_, i) => i).sort((a, b) => xIn[a] - xIn[b]);
   let mx = 0;
   let my = 0;
   for (let i = 0; i < n; i++) {
@@ -199,44 +243,47 @@ export function fitHinge(xIn: ArrayLike<number>, yIn: ArrayLike<number>, options
   my /= n;
   const x = new Float64Array(n);
   const y = new Float64Array(n);
-  order.forEach((o, i) => {
+  const order = sortedOrder(xIn);
+  for (let i = 0; i < n; i++) {
+    const o = order === null ? i : order === 'reversed' ? n - 1 - i : order[i];
     x[i] = xIn[o] - mx;
     y[i] = yIn[o] - my;
-  });
+  }
   const p = new PrefixSums(x, y);
 
   const lo = Math.max(x[nMin - 1], x[0] + minSpan);
   const hi = Math.min(x[n - nMin], x[n - 1] - minSpan);
   if (!(lo <= hi)) return { ok: false, reason: x[n - 1] - x[0] < 2 * minSpan ? 'too-short-span' : 'too-few-points' };
 
-  let best = { sse: Infinity, tb: NaN };
-  const consider = (tb: number): void => {
-    if (!(tb >= lo && tb <= hi)) return;
-    const h = hingeAt(p, tb, countAtOrBelow(x, tb));
-    if (h && h.sse < best.sse) best = { sse: h.sse, tb };
+  let bestSse = Infinity;
+  let tb = NaN;
+  const consider = (t: number): void => {
+    if (!(t >= lo && t <= hi)) return;
+    const sse = hingeSse(p, t, countAtOrBelow(x, t));
+    if (sse < bestSse) {
+      bestSse = sse;
+      tb = t;
+    }
   };
   consider(lo);
   consider(hi);
+  const left: LineCoefficients = { sse: 0, slope: 0, intercept: 0 };
+  const right: LineCoefficients = { sse: 0, slope: 0, intercept: 0 };
   for (let k = 1; k < n; k++) {
     const xa = x[k - 1];
     const xb = x[k];
     if (xb < lo || xa > hi) continue;
     if (xa >= lo && xa <= hi) consider(xa);
-    if (xb > xa) {
-      const left = lineOver(p, 0, k);
-      const right = lineOver(p, k, n);
-      if (left && right && left.slope !== right.slope) {
-        const tb = (right.intercept - left.intercept) / (left.slope - right.slope);
-        if (tb > xa && tb < xb && tb >= lo && tb <= hi) {
-          const sse = left.sse + right.sse;
-          if (sse < best.sse) best = { sse, tb };
-        }
+    if (xb > xa && lineOver(p, 0, k, left) && lineOver(p, k, n, right) && left.slope !== right.slope) {
+      const t = (right.intercept - left.intercept) / (left.slope - right.slope);
+      if (t > xa && t < xb && t >= lo && t <= hi && left.sse + right.sse < bestSse) {
+        bestSse = left.sse + right.sse;
+        tb = t;
       }
     }
   }
-  if (!Number.isFinite(best.tb)) return { ok: false, reason: 'degenerate' };
+  if (!Number.isFinite(tb)) return { ok: false, reason: 'degenerate' };
 
-  const tb = best.tb;
   const final = hingeAt(p, tb, countAtOrBelow(x, tb));
   if (!final) return { ok: false, reason: 'degenerate' };
   const dof = n - 4;
@@ -245,7 +292,7 @@ export function fitHinge(xIn: ArrayLike<number>, yIn: ArrayLike<number>, options
 
   // Profile-likelihood interval: walk out from the optimum, then bisect the crossing.
   const threshold = sse * (1 + fisherFQuantile(0.95, 1, Math.max(1, dof)) / Math.max(1, dof));
-  const profile = (t: number): number => hingeAt(p, t, countAtOrBelow(x, t))?.sse ?? Infinity;
+  const profile = (t: number): number => hingeSse(p, t, countAtOrBelow(x, t));
   const step = Math.max((hi - lo) / 20000, 1e-6);
   const edge = (dir: 1 | -1): { at: number; open: boolean } => {
     const limit = dir > 0 ? hi : lo;
@@ -273,8 +320,7 @@ export function fitHinge(xIn: ArrayLike<number>, yIn: ArrayLike<number>, options
   const low = sse > 0 ? edge(-1) : { at: tb, open: false };
   const high = sse > 0 ? edge(1) : { at: tb, open: false };
 
-  const line = lineOver(p, 0, n);
-  const sseLine = line ? line.sse : Infinity;
+  const sseLine = lineOver(p, 0, n, left) ? left.sse : Infinity;
   const fStat = dof > 0 && sse > 0 ? (sseLine - sse) / (sse / dof) : Infinity;
   const pTransition = Number.isFinite(fStat) ? 1 - fisherFCdf(Math.max(0, fStat), 1, Math.max(1, dof)) : 0;
 

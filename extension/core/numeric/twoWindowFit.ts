@@ -110,8 +110,8 @@ export function fitTwoWindows(T: ArrayLike<number>, h: ArrayLike<number>, tgStar
   if (!fit.ok || options.adapt === false) return fit;
   for (let k = 0; k < MAX_WIDENINGS; k++) {
     const f: TwoWindowFit = fit;
-    const glassBends = Math.abs(curvatureT(T, h, (x) => x <= f.glassWindow[1])) > CURVATURE_T;
-    const liquidBends = Math.abs(curvatureT(T, h, (x) => x >= f.liquidWindow[0])) > CURVATURE_T;
+    const glassBends = Math.abs(curvatureT(T, h, -Infinity, f.glassWindow[1])) > CURVATURE_T;
+    const liquidBends = Math.abs(curvatureT(T, h, f.liquidWindow[0], Infinity)) > CURVATURE_T;
     if (!glassBends && !liquidBends) return f;
     const wider = atGaps(T, h, f.tg, f.glassGap * (glassBends ? 1.5 : 1), f.liquidGap * (liquidBends ? 1.5 : 1), minPoints, minSpan);
     if (!wider.ok) return { ...f, curved: true };
@@ -120,6 +120,6 @@ export function fitTwoWindows(T: ArrayLike<number>, h: ArrayLike<number>, tgStar
   // After the last widening, windows that still bend are said to.
   const last: TwoWindowFit = fit;
   const stillBends =
-    Math.abs(curvatureT(T, h, (x) => x <= last.glassWindow[1])) > CURVATURE_T || Math.abs(curvatureT(T, h, (x) => x >= last.liquidWindow[0])) > CURVATURE_T;
+    Math.abs(curvatureT(T, h, -Infinity, last.glassWindow[1])) > CURVATURE_T || Math.abs(curvatureT(T, h, last.liquidWindow[0], Infinity)) > CURVATURE_T;
   return stillBends ? { ...last, curved: true } : last;
 }

@@ -68,7 +68,54 @@ export function escapePointer(key: string): string {
   return key.replace(/~/g, '~0').replace(/\//g, '~1');
 }
 
+/** A key the YAML core schema reads as text, and that is no property of every object. */
+const PLAIN_KEY = /^([A-Za-z_][A-Za-z0-9_]*):( +)/;
+const NOT_TEXT_KEY = /^(?:true|True|TRUE|false|False|FALSE|null|Null|NULL|__proto__)$/;
+
+/**
+ * Metadata that is one `key: text` line after another, read without the YAML parser: every line
+ * a plain key at the margin, a colon, spaces and a value that the YAML core schema can only read as
+ * text (it starts with a letter or a digit, holds no comment, colon-space or tab, and is no
+ * number, boolean or null: a value without a space that starts with a digit, a sign or a point is
+ * left to the parser); no key twice. Null for anything else: the parser reads it. What it returns
+ * is what the parser gives for the same text (a property test holds them together).
+ */
+export function readFlatMetadata(text: string): Metadata | null {
+  const data: Record<string, unknown> = {};
+  const spans = new Map<string, EntrySpans>();
+  let at = 0;
+  while (at <= text.length) {
+    let end = text.indexOf('\n', at);
+    if (end < 0) end = text.length;
+    if (end > at) {
+      const line = text.slice(at, end);
+      const m = PLAIN_KEY.exec(line);
+      if (!m || NOT_TEXT_KEY.test(m[1]) || Object.prototype.hasOwnProperty.call(data, m[1])) return null;
+      const start = m[0].length;
+      let stop = line.length;
+      while (stop > start && line.charCodeAt(stop - 1) === 32) stop--;
+      if (stop === start) return null;
+      const value = line.slice(start, stop);
+      const first = value.charCodeAt(0);
+      const letter = (first >= 65 && first <= 90) || (first >= 97 && first <= 122);
+      const digit = first >= 48 && first <= 57;
+      if (!letter && !digit) return null;
+      if (value.includes('#') || value.includes(': ') || value.endsWith(':') || value.includes('\t') || value.includes('\r')) return null;
+      if (!value.includes(' ') && (digit || /^(?:true|True|TRUE|false|False|FALSE|null|Null|NULL)$/.test(value))) return null;
+      data[m[1]] = value;
+      spans.set(`/${m[1]}`, { key: { start: at, end: at + m[1].length }, value: { start: at + start, end: at + stop } });
+    }
+    at = end + 1;
+  }
+  return { data, spans, problems: [], notAMap: false };
+}
+
 export function parseMetadata(text: string): Metadata {
+  return (text.trim().length > 0 ? readFlatMetadata(text) : null) ?? parseYamlMetadata(text);
+}
+
+/** The metadata as the YAML parser reads it. */
+export function parseYamlMetadata(text: string): Metadata {
   const spans = new Map<string, EntrySpans>();
   const problems: YamlProblem[] = [];
   if (text.trim().length === 0) return { data: {}, spans, problems, notAMap: false };

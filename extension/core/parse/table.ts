@@ -131,6 +131,59 @@ function numberChar(c: number): boolean {
   return (c >= 48 && c <= 57) || c === 43 || c === 45 || c === 46 || c === 69 || c === 101;
 }
 
+/** Exact powers of ten as doubles (10²² is the largest). */
+const POWERS_OF_TEN = Array.from({ length: 23 }, (_, k) => Number(`1e${k}`));
+
+/**
+ * A decimal number written in text[start, end) (`NUMBER`'s grammar), without a string: when its
+ * digits, leading zeros aside, are at most 15 and its power of ten at most 22 either way, the
+ * digits form an exact integer and one division or multiplication by an exact power of ten rounds
+ * correctly (Clinger, "How to read floating point numbers accurately", PLDI 1990), so the value is
+ * the one `Number` reads. NaN for anything else: the caller reads the cell with `Number`.
+ */
+export function plainNumber(text: string, start: number, end: number): number {
+  let i = start;
+  let c = text.charCodeAt(i);
+  const negative = c === 45;
+  if (c === 43 || c === 45) c = text.charCodeAt(++i);
+  let mantissa = 0;
+  let digits = 0;
+  let scale = 0;
+  let seen = false;
+  for (; i < end && c >= 48 && c <= 57; c = text.charCodeAt(++i)) {
+    seen = true;
+    if (mantissa === 0 && c === 48) continue;
+    mantissa = mantissa * 10 + (c - 48);
+    digits++;
+  }
+  if (i < end && c === 46) {
+    for (c = text.charCodeAt(++i); i < end && c >= 48 && c <= 57; c = text.charCodeAt(++i)) {
+      seen = true;
+      scale--;
+      if (mantissa === 0 && c === 48) continue;
+      mantissa = mantissa * 10 + (c - 48);
+      digits++;
+    }
+  }
+  if (!seen || digits > 15) return NaN;
+  if (i < end && (c === 101 || c === 69)) {
+    c = text.charCodeAt(++i);
+    const minus = c === 45;
+    if (c === 43 || c === 45) c = text.charCodeAt(++i);
+    let exponent = 0;
+    let any = false;
+    for (; i < end && c >= 48 && c <= 57 && exponent < 1000; c = text.charCodeAt(++i)) {
+      exponent = exponent * 10 + (c - 48);
+      any = true;
+    }
+    if (!any) return NaN;
+    scale += minus ? -exponent : exponent;
+  }
+  if (i !== end || scale < -22 || scale > 22) return NaN;
+  const value = scale < 0 ? mantissa / POWERS_OF_TEN[-scale] : mantissa * POWERS_OF_TEN[scale];
+  return negative ? -value : value;
+}
+
 /**
  * The common row, read without a string or an object per cell: exactly `ncol` plain numbers
  * (`NUMBER`, then one more empty cell at the end for a trailing delimiter) separated by the
@@ -154,9 +207,13 @@ function readPlainRow(text: string, delimiter: Delimiter, ncol: number, out: Flo
       return i === n && j === ncol && (sep === -1 || j > 0);
     }
     if (j === ncol) return false;
-    const cell = text.slice(start, end);
-    if (!NUMBER.test(cell)) return false;
-    out[j++] = Number(cell);
+    let value = plainNumber(text, start, end);
+    if (Number.isNaN(value)) {
+      const cell = text.slice(start, end);
+      if (!NUMBER.test(cell)) return false;
+      value = Number(cell);
+    }
+    out[j++] = value;
     if (i === n) return j === ncol;
     if (sep === -1) continue;
     if (text.charCodeAt(i) !== sep) return false;

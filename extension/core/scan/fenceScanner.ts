@@ -25,11 +25,11 @@
  * the document when it is never closed.
  */
 import { decodeInfoString } from './infoString.js';
-import type { BodyLine } from '../text/bodyMap.js';
+import { BodyLines, type BodyLine, type BodyLineList } from '../text/bodyMap.js';
 import type { Span } from '../text/positions.js';
 
 /** One line of a block's body as it maps back into the source. */
-export type { BodyLine };
+export type { BodyLine, BodyLineList };
 
 export interface FencedBlock {
   /** From the first fence character to the end of the block (see the file comment). */
@@ -44,7 +44,7 @@ export interface FencedBlock {
   readonly meta: string | null;
   readonly fenceChar: '`' | '~';
   readonly fenceLength: number;
-  readonly bodyLines: readonly BodyLine[];
+  readonly bodyLines: BodyLineList;
   /** The body text: body lines joined by `\n`. */
   readonly body: string;
   readonly closed: boolean;
@@ -85,7 +85,9 @@ interface OpenFence {
   readonly rawInfo: string;
   readonly untrimmedInfo: string;
   readonly infoSpan: Span;
-  readonly lines: BodyLine[];
+  readonly lines: BodyLines;
+  /** Every line so far starts right after the line break ending the one before, with no pad: the body is one slice of the text. */
+  contiguous: boolean;
   readonly nested: boolean;
   /** End of the opening fence line. */
   readonly openEnd: number;
@@ -174,22 +176,6 @@ function breakShape(line: string, marker: string): BreakShape {
   return { from: i + 1, third };
 }
 
-/** Splits text into lines: [start, end) without the break, and where the next line starts. */
-function splitLines(text: string): Array<{ start: number; end: number }> {
-  const lines: Array<{ start: number; end: number }> = [];
-  let start = 0;
-  for (let i = 0; i < text.length; i++) {
-    const c = text.charCodeAt(i);
-    if (c === 10 || c === 13) {
-      lines.push({ start, end: i });
-      if (c === 13 && text.charCodeAt(i + 1) === 10) i++;
-      start = i + 1;
-    }
-  }
-  if (start < text.length) lines.push({ start, end: text.length });
-  return lines;
-}
-
 /** Scans a document and returns its fenced code blocks in document order. */
 export function scanFencedBlocks(text: string): FencedBlock[] {
   return new FenceScanner(text).run();
@@ -229,9 +215,18 @@ class FenceScanner {
   constructor(private readonly text: string) {}
 
   run(): FencedBlock[] {
-    for (const { start, end } of splitLines(this.text)) {
-      this.incorporateLine(start, end);
+    // Lines [start, end) without their break (LF, CR or CR LF).
+    const text = this.text;
+    let start = 0;
+    for (let i = 0; i < text.length; i++) {
+      const c = text.charCodeAt(i);
+      if (c === 10 || c === 13) {
+        this.incorporateLine(start, i);
+        if (c === 13 && text.charCodeAt(i + 1) === 10) i++;
+        start = i + 1;
+      }
     }
+    if (start < text.length) this.incorporateLine(start, text.length);
     // A final line break leaves an empty last line: a block quote does not continue over it,
     // so a fence inside a quote ends with its last line, not at the end of the text.
     const lastChar = this.text.charCodeAt(this.text.length - 1);
@@ -241,8 +236,8 @@ class FenceScanner {
     // for remark, no line: it is not in the body; when container prefixes alone used it up,
     // the block ends where that line starts.
     const fence = this.leaf?.kind === 'fenced' ? this.leaf.fence! : null;
-    const last = fence?.lines[fence.lines.length - 1];
-    if (fence && last && !endsWithBreak && last.pad === 0 && last.start === last.end && last.end === this.text.length && this.lineEnd > this.lineStart) {
+    const last = fence ? fence.lines.length - 1 : -1;
+    if (fence && last >= 0 && !endsWithBreak && fence.lines.pad(last) === 0 && fence.lines.start(last) === fence.lines.end(last) && fence.lines.end(last) === this.text.length && this.lineEnd > this.lineStart) {
       fence.lines.pop();
       if (this.containers.length > 1 && !this.fenceIndentRemoved) {
         this.leaf = null;
@@ -343,7 +338,38 @@ class FenceScanner {
     }
   }
 
+  /**
+   * A line of a fence that sits directly in the document, read without slicing it: its closing
+   * fence, or a content line with the fence's indentation removed. False when the line's
+   * indentation holds a tab (the general path counts its columns).
+   */
+  private fenceLineInDocument(fence: OpenFence, start: number, end: number): boolean {
+    const text = this.text;
+    let i = start;
+    while (i < end && text.charCodeAt(i) === 32) i++;
+    if (i < end && text.charCodeAt(i) === 9) return false;
+    this.lineStart = start;
+    this.lineEnd = end;
+    const indent = i - start;
+    if (indent <= 3 && i < end && text[i] === fence.fenceChar) {
+      let j = i;
+      while (j < end && text[j] === fence.fenceChar) j++;
+      let k = j;
+      while (k < end && (text.charCodeAt(k) === 32 || text.charCodeAt(k) === 9)) k++;
+      if (k === end && j - i >= fence.fenceLength) {
+        this.finishFence(fence, end, true);
+        this.leaf = null;
+        return true;
+      }
+    }
+    const removed = Math.min(indent, fence.fenceIndent);
+    this.fenceIndentRemoved = removed > 0;
+    this.addFenceLine(fence, start + removed, 0);
+    return true;
+  }
+
   private incorporateLine(start: number, end: number): void {
+    if (this.containers.length === 1 && this.leaf?.kind === 'fenced' && this.fenceLineInDocument(this.leaf.fence!, start, end)) return;
     this.line = this.text.slice(start, end);
     this.lineStart = start;
     this.lineEnd = end;
@@ -523,7 +549,8 @@ class FenceScanner {
         rawInfo,
         untrimmedInfo: this.pendingInfo,
         infoSpan: { start: infoStart, end: infoStart + rawInfo.length },
-        lines: [],
+        lines: new BodyLines(),
+        contiguous: true,
         nested: this.containers.length > 1,
         openEnd: this.lineEnd,
         lastEnd: this.lineEnd,
@@ -632,9 +659,14 @@ class FenceScanner {
       this.offset += 1;
       pad = 4 - (this.column % 4);
     }
-    const fence = leaf.fence!;
-    const start = this.lineStart + Math.min(this.offset, this.line.length);
-    fence.lines.push({ start, end: this.lineEnd, pad });
+    this.addFenceLine(leaf.fence!, this.lineStart + Math.min(this.offset, this.line.length), pad);
+  }
+
+  /** Adds a body line that runs from `start` to the end of the current line. */
+  private addFenceLine(fence: OpenFence, start: number, pad: number): void {
+    const n = fence.lines.length;
+    if (fence.contiguous && (pad !== 0 || (n > 0 && (start !== fence.lines.end(n - 1) + 1 || this.text.charCodeAt(start - 1) !== 10)))) fence.contiguous = false;
+    fence.lines.push(start, this.lineEnd, pad);
     fence.lastEnd = this.lineEnd;
   }
 
@@ -693,14 +725,17 @@ class FenceScanner {
     } else if (cause === 'container') {
       this.finishFence(fence, at, false);
     } else {
-      const last = fence.lines[fence.lines.length - 1];
-      if (last && last.pad === 0 && last.start === last.end) fence.lines.pop();
+      const last = fence.lines.length - 1;
+      if (last >= 0 && fence.lines.pad(last) === 0 && fence.lines.start(last) === fence.lines.end(last)) fence.lines.pop();
       this.finishFence(fence, fence.lastEnd, false);
     }
   }
 
   private finishFence(fence: OpenFence, end: number, closed: boolean): void {
-    const body = fence.lines.map((l) => ' '.repeat(l.pad) + this.text.slice(l.start, l.end)).join('\n');
+    const lines = fence.lines;
+    let body = '';
+    if (lines.length > 0 && fence.contiguous) body = this.text.slice(lines.start(0), lines.end(lines.length - 1));
+    else for (let i = 0; i < lines.length; i++) body += (i > 0 ? '\n' : '') + ' '.repeat(lines.pad(i)) + this.text.slice(lines.start(i), lines.end(i));
     const { lang, meta } = decodeInfoString(fence.untrimmedInfo);
     this.blocks.push({
       nested: fence.nested,

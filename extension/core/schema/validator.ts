@@ -34,7 +34,7 @@ function validatorOf(kind: BlockKind): ValidateFunction {
   let v = compiled.get(kind);
   if (v) return v;
   if (!ajv) {
-    ajv = new Ajv2020({ allErrors: true, strict: true, allowUnionTypes: true, strictRequired: false, verbose: true });
+    ajv = new Ajv2020({ allErrors: true, strict: true, allowUnionTypes: true, strictRequired: false, verbose: true, validateSchema: false });
     ajv.addKeyword({ keyword: 'quantityOf', schemaType: 'string' });
     // Checked on the quantity once its unit is read (parseBlock.ts), not on the text.
     ajv.addKeyword({ keyword: 'quantityExclusiveMinimum', schemaType: 'number' });

@@ -14,15 +14,72 @@ export interface BodyLine {
   readonly pad: number;
 }
 
+/**
+ * The lines of a block's body, packed three integers to a line (no object per line): a 600-row
+ * table keeps one array, not 600 objects.
+ */
+export class BodyLines {
+  private data = new Int32Array(3 * 16);
+  private count = 0;
+
+  get length(): number {
+    return this.count;
+  }
+
+  push(start: number, end: number, pad: number): void {
+    if (3 * this.count === this.data.length) {
+      const bigger = new Int32Array(this.data.length * 2);
+      bigger.set(this.data);
+      this.data = bigger;
+    }
+    this.data[3 * this.count] = start;
+    this.data[3 * this.count + 1] = end;
+    this.data[3 * this.count + 2] = pad;
+    this.count++;
+  }
+
+  pop(): void {
+    if (this.count > 0) this.count--;
+  }
+
+  start(i: number): number {
+    return this.data[3 * i];
+  }
+
+  end(i: number): number {
+    return this.data[3 * i + 1];
+  }
+
+  pad(i: number): number {
+    return this.data[3 * i + 2];
+  }
+
+  at(i: number): BodyLine | undefined {
+    return i >= 0 && i < this.count ? { start: this.start(i), end: this.end(i), pad: this.pad(i) } : undefined;
+  }
+}
+
+/** Read access to body lines (the scanner's store, or a plain list in tests). */
+export type BodyLineList = Pick<BodyLines, 'length' | 'start' | 'end' | 'pad'>;
+
 export class BodyMap {
   /** Body offset where each line starts. */
-  private readonly starts: number[] = [];
+  private readonly starts: Int32Array;
 
-  constructor(private readonly lines: readonly BodyLine[], private readonly fallback: number) {
+  /**
+   * `shift` is subtracted from every document offset of `lines`: a block's lines are kept as the
+   * scanner found them and read relative to the block's first fence character.
+   */
+  constructor(
+    private readonly lines: BodyLineList,
+    private readonly fallback: number,
+    private readonly shift = 0,
+  ) {
+    this.starts = new Int32Array(lines.length);
     let at = 0;
-    for (const line of lines) {
-      this.starts.push(at);
-      at += line.pad + (line.end - line.start) + 1;
+    for (let i = 0; i < lines.length; i++) {
+      this.starts[i] = at;
+      at += lines.pad(i) + (lines.end(i) - lines.start(i)) + 1;
     }
   }
 
@@ -40,9 +97,8 @@ export class BodyMap {
       if (this.starts[mid] <= bodyOffset) lo = mid;
       else hi = mid - 1;
     }
-    const line = this.lines[lo];
-    const column = bodyOffset - this.starts[lo] - line.pad;
-    return Math.min(line.start + Math.max(0, column), line.end);
+    const column = bodyOffset - this.starts[lo] - this.lines.pad(lo);
+    return Math.min(this.lines.start(lo) + Math.max(0, column), this.lines.end(lo)) - this.shift;
   }
 
   spanToDocument(span: Span): Span {
@@ -53,7 +109,8 @@ export class BodyMap {
 
   /** Document span of a whole body line (0-based index). */
   lineSpan(index: number): Span {
-    const line = this.lines[Math.max(0, Math.min(index, this.lines.length - 1))];
-    return line ? { start: line.start, end: line.end } : { start: this.fallback, end: this.fallback };
+    if (this.lines.length === 0) return { start: this.fallback, end: this.fallback };
+    const i = Math.max(0, Math.min(index, this.lines.length - 1));
+    return { start: this.lines.start(i) - this.shift, end: this.lines.end(i) - this.shift };
   }
 }

@@ -38,6 +38,12 @@ export class LineIndex {
 
   constructor(readonly text: string) {
     const starts = [0];
+    if (text.indexOf('\r') < 0) {
+      // Line feeds only (almost every file): the search for the next one is the engine's own.
+      for (let i = text.indexOf('\n'); i >= 0; i = text.indexOf('\n', i + 1)) starts.push(i + 1);
+      this.lineStarts = starts;
+      return;
+    }
     for (let i = 0; i < text.length; i++) {
       const c = text.charCodeAt(i);
       if (c === 13 /* \r */) {
