@@ -9,6 +9,7 @@
  *
  * TextDecoder is a web standard: the decoding is the same in any host. Policy: never throws.
  */
+import * as nodeBuffer from 'node:buffer';
 
 export type TextEncodingName = 'utf-8' | 'utf-16le' | 'utf-16be' | 'windows-1252';
 
@@ -58,13 +59,23 @@ export function sniffUtf16(b: Uint8Array): 'utf-16le' | 'utf-16be' | null {
   return null;
 }
 
+/** Are all bytes below 0x80? (Node's own check where it has one.) */
+function isAsciiBytes(bytes: Uint8Array): boolean {
+  if (typeof nodeBuffer.isAscii === 'function') return nodeBuffer.isAscii(bytes);
+  for (let i = 0; i < bytes.length; i++) if (bytes[i] >= 0x80) return false;
+  return true;
+}
+
 /** The text of the bytes under the rules, byte-order marks removed, and the encoding it was read in. */
 export function decodeTextBytes(bytes: Uint8Array, rules: DecodeRules = {}): DecodedText {
   const found = markedEncoding(bytes) ?? (rules.bomlessUtf16 ? sniffUtf16(bytes) : null);
   if (found === 'utf-32') return { ok: false, detail: 'it is encoded as UTF-32; save it as UTF-8' };
   let encoding: TextEncodingName = found ?? 'utf-8';
   let text: string;
-  if (found !== null || !rules.fallback) {
+  if (found === null && isAsciiBytes(bytes)) {
+    // Plain ASCII (most notebooks and exports): every reading gives the same text, latin1 the fastest.
+    text = nodeBuffer.Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString('latin1');
+  } else if (found !== null || !rules.fallback) {
     text = new TextDecoder(encoding).decode(bytes);
   } else {
     try {

@@ -191,9 +191,11 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext, choices: R
     return empty;
   }
   const what = hcol.role === 'volume' ? 'specific volume' : 'thickness';
-  for (let i = 0; i < hcol.values.length; i++) {
-    if (!(hcol.values[i] > 0)) {
-      note(messages.rampThicknessNotPositive(hcol.values[i], what), block.rowSpan(i));
+  // (A variant runs only after the nominal analysis found every thickness positive.)
+  const hv = hcol.values;
+  for (let i = 0; !memo?.prepared && i < hv.length; i++) {
+    if (!(hv[i] > 0)) {
+      note(messages.rampThicknessNotPositive(hv[i], what), block.rowSpan(i));
       return empty;
     }
   }

@@ -8,7 +8,9 @@
 export function firstAbruptDrop(h: ArrayLike<number>, floor = 0): { index: number; drop: number } {
   const n = h.length;
   if (n < 20) return { index: -1, drop: 0 };
-  const steps = Float64Array.from({ length: n - 1 }, (_, i) => Math.abs(h[i + 1] - h[i])).sort();
+  const steps = new Float64Array(n - 1);
+  for (let i = 0; i < n - 1; i++) steps[i] = Math.abs(h[i + 1] - h[i]);
+  steps.sort();
   const typical = Math.max(steps[Math.floor(steps.length / 2)], floor);
   if (!(typical > 0)) return { index: -1, drop: 0 };
   for (let i = 1; i < n; i++) {

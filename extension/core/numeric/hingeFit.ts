@@ -63,14 +63,12 @@ class PrefixSums {
   readonly sxy: Float64Array;
   readonly syy: Float64Array;
 
-  constructor(x: Float64Array, y: Float64Array) {
+  /** Sums of x and y (n points each), written into `sums`: five arrays of n + 1. */
+  constructor(x: Float64Array, y: Float64Array, sums: readonly Float64Array[]) {
     const n = x.length;
     this.n = n;
-    this.sx = new Float64Array(n + 1);
-    this.sxx = new Float64Array(n + 1);
-    this.sy = new Float64Array(n + 1);
-    this.sxy = new Float64Array(n + 1);
-    this.syy = new Float64Array(n + 1);
+    [this.sx, this.sxx, this.sy, this.sxy, this.syy] = sums;
+    this.sx[0] = this.sxx[0] = this.sy[0] = this.sxy[0] = this.syy[0] = 0;
     for (let i = 0; i < n; i++) {
       this.sx[i + 1] = this.sx[i] + x[i];
       this.sxx[i + 1] = this.sxx[i] + x[i] * x[i];
@@ -203,6 +201,22 @@ function fullCovariance(p: PrefixSums, tb: number, k: number, sg: number, sl: nu
   return inv[1][1] > 0 && inv[2][2] > 0 ? inv : null;
 }
 
+/** Fits up to this many points reuse one set of work arrays (a fit keeps none of them). */
+const REUSED_WORK_POINTS = 20000;
+let reusedWork = new Float64Array(0);
+
+/** x and y (n each) and the five prefix sums (n + 1 each) of a fit, without a new allocation per fit where n allows. */
+function workArrays(n: number): Float64Array[] {
+  const size = 7 * (n + 1);
+  let store: Float64Array;
+  if (n > REUSED_WORK_POINTS) store = new Float64Array(size);
+  else {
+    if (reusedWork.length < size) reusedWork = new Float64Array(7 * (Math.max(n, 1024) + 1));
+    store = reusedWork;
+  }
+  return [0, 1, 2, 3, 4, 5, 6].map((k) => store.subarray(k * (n + 1), (k + 1) * (n + 1) - (k < 2 ? 1 : 0)));
+}
+
 /** The order that sorts x ascending: null when it already is, 'reversed' when it descends, else the indices. */
 function sortedOrder(x: ArrayLike<number>): Int32Array | 'reversed' | null {
   let ascending = true;
@@ -241,15 +255,16 @@ export function fitHinge(xIn: ArrayLike<number>, yIn: ArrayLike<number>, options
   }
   mx /= n;
   my /= n;
-  const x = new Float64Array(n);
-  const y = new Float64Array(n);
+  const work = workArrays(n);
+  const x = work[0];
+  const y = work[1];
   const order = sortedOrder(xIn);
   for (let i = 0; i < n; i++) {
     const o = order === null ? i : order === 'reversed' ? n - 1 - i : order[i];
     x[i] = xIn[o] - mx;
     y[i] = yIn[o] - my;
   }
-  const p = new PrefixSums(x, y);
+  const p = new PrefixSums(x, y, work.slice(2));
 
   const lo = Math.max(x[nMin - 1], x[0] + minSpan);
   const hi = Math.min(x[n - nMin], x[n - 1] - minSpan);

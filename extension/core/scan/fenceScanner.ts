@@ -733,6 +733,7 @@ class FenceScanner {
 
   private finishFence(fence: OpenFence, end: number, closed: boolean): void {
     const lines = fence.lines;
+    lines.trim();
     let body = '';
     if (lines.length > 0 && fence.contiguous) body = this.text.slice(lines.start(0), lines.end(lines.length - 1));
     else for (let i = 0; i < lines.length; i++) body += (i > 0 ? '\n' : '') + ' '.repeat(lines.pad(i)) + this.text.slice(lines.start(i), lines.end(i));

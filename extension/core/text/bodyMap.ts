@@ -28,7 +28,7 @@ export class BodyLines {
 
   push(start: number, end: number, pad: number): void {
     if (3 * this.count === this.data.length) {
-      const bigger = new Int32Array(this.data.length * 2);
+      const bigger = new Int32Array(Math.max(48, this.data.length * 2));
       bigger.set(this.data);
       this.data = bigger;
     }
@@ -36,6 +36,11 @@ export class BodyLines {
     this.data[3 * this.count + 1] = end;
     this.data[3 * this.count + 2] = pad;
     this.count++;
+  }
+
+  /** Gives back the room kept for more lines (once the block is complete). */
+  trim(): void {
+    if (this.data.length > 3 * this.count) this.data = this.data.slice(0, 3 * this.count);
   }
 
   pop(): void {
