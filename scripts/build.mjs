@@ -1,10 +1,13 @@
 // Bundles the command line, the language server, the VS Code extension and the preview webview
 // with esbuild. Type-checking is `npm run typecheck` (tsc --noEmit). `--release` minifies and
 // leaves out source maps (the packaged extension).
-import { copyFile, mkdir } from 'node:fs/promises';
+import { copyFile, mkdir, rm } from 'node:fs/promises';
 import { build } from 'esbuild';
 
 const release = process.argv.includes('--release');
+// Chunks of earlier builds would otherwise pile up beside the current ones.
+await rm('dist/cli-chunks', { recursive: true, force: true });
+
 const common = { bundle: true, platform: 'node', target: 'node20', sourcemap: !release, minify: release, logLevel: 'warning' };
 
 await Promise.all([

@@ -85,7 +85,8 @@ interface OpenFence {
   readonly rawInfo: string;
   readonly untrimmedInfo: string;
   readonly infoSpan: Span;
-  readonly lines: BodyLines;
+  /** Where its lines begin in the scanner's line store (the open fence's lines are its tail). */
+  readonly first: number;
   /** Every line so far starts right after the line break ending the one before, with no pad: the body is one slice of the text. */
   contiguous: boolean;
   readonly nested: boolean;
@@ -187,6 +188,8 @@ class FenceScanner {
   /** Indices of the containers a blank line cannot continue (block quotes, items without content), ascending. */
   private readonly blankStops: number[] = [];
   private leaf: Leaf | null = null;
+  /** Lines of the open fence (the scanner's one store; a finished block takes a copy of its own). */
+  private readonly lines = new BodyLines();
 
   // Per-line cursor, as in the specification's reference parser.
   private line = '';
@@ -236,9 +239,10 @@ class FenceScanner {
     // for remark, no line: it is not in the body; when container prefixes alone used it up,
     // the block ends where that line starts.
     const fence = this.leaf?.kind === 'fenced' ? this.leaf.fence! : null;
-    const last = fence ? fence.lines.length - 1 : -1;
-    if (fence && last >= 0 && !endsWithBreak && fence.lines.pad(last) === 0 && fence.lines.start(last) === fence.lines.end(last) && fence.lines.end(last) === this.text.length && this.lineEnd > this.lineStart) {
-      fence.lines.pop();
+    const lines = this.lines;
+    const last = fence ? lines.length - 1 : -1;
+    if (fence && last >= fence.first && !endsWithBreak && lines.pad(last) === 0 && lines.start(last) === lines.end(last) && lines.end(last) === this.text.length && this.lineEnd > this.lineStart) {
+      lines.pop();
       if (this.containers.length > 1 && !this.fenceIndentRemoved) {
         this.leaf = null;
         this.finishFence(fence, this.lineStart, false);
@@ -549,7 +553,7 @@ class FenceScanner {
         rawInfo,
         untrimmedInfo: this.pendingInfo,
         infoSpan: { start: infoStart, end: infoStart + rawInfo.length },
-        lines: new BodyLines(),
+        first: this.lines.length,
         contiguous: true,
         nested: this.containers.length > 1,
         openEnd: this.lineEnd,
@@ -664,9 +668,10 @@ class FenceScanner {
 
   /** Adds a body line that runs from `start` to the end of the current line. */
   private addFenceLine(fence: OpenFence, start: number, pad: number): void {
-    const n = fence.lines.length;
-    if (fence.contiguous && (pad !== 0 || (n > 0 && (start !== fence.lines.end(n - 1) + 1 || this.text.charCodeAt(start - 1) !== 10)))) fence.contiguous = false;
-    fence.lines.push(start, this.lineEnd, pad);
+    const lines = this.lines;
+    const n = lines.length;
+    if (fence.contiguous && (pad !== 0 || (n > fence.first && (start !== lines.end(n - 1) + 1 || this.text.charCodeAt(start - 1) !== 10)))) fence.contiguous = false;
+    lines.push(start, this.lineEnd, pad);
     fence.lastEnd = this.lineEnd;
   }
 
@@ -725,15 +730,16 @@ class FenceScanner {
     } else if (cause === 'container') {
       this.finishFence(fence, at, false);
     } else {
-      const last = fence.lines.length - 1;
-      if (last >= 0 && fence.lines.pad(last) === 0 && fence.lines.start(last) === fence.lines.end(last)) fence.lines.pop();
+      const lines = this.lines;
+      const last = lines.length - 1;
+      if (last >= fence.first && lines.pad(last) === 0 && lines.start(last) === lines.end(last)) lines.pop();
       this.finishFence(fence, fence.lastEnd, false);
     }
   }
 
   private finishFence(fence: OpenFence, end: number, closed: boolean): void {
-    const lines = fence.lines;
-    lines.trim();
+    const lines = this.lines.copyFrom(fence.first);
+    this.lines.truncate(fence.first);
     let body = '';
     if (lines.length > 0 && fence.contiguous) body = this.text.slice(lines.start(0), lines.end(lines.length - 1));
     else for (let i = 0; i < lines.length; i++) body += (i > 0 ? '\n' : '') + ' '.repeat(lines.pad(i)) + this.text.slice(lines.start(i), lines.end(i));
@@ -747,7 +753,7 @@ class FenceScanner {
       meta,
       fenceChar: fence.fenceChar,
       fenceLength: fence.fenceLength,
-      bodyLines: fence.lines,
+      bodyLines: lines,
       body,
       closed,
     });

@@ -1,20 +1,17 @@
 /**
- * Validates block metadata against the kind's JSON Schema (draft 2020-12) with ajv, compiled
- * once per kind, and turns every ajv error into a diagnostic message with a stable code and the
- * JSON pointer it is about. Where a pointer lands in the source is the caller's business.
+ * Validates block metadata against the kind's JSON Schema (draft 2020-12) with ajv's validators,
+ * compiled from the schemas ahead of time (scripts/compile-schemas.mjs), and turns every ajv error
+ * into a diagnostic message with a stable code and the JSON pointer it is about. Where a pointer lands in the source is the caller's business.
  *
  * Policy: never throws; data of any shape is accepted and reported on.
  */
-import * as ajv2020 from 'ajv/dist/2020.js';
-import type { ErrorObject, ValidateFunction } from 'ajv';
+import type { ErrorObject } from 'ajv';
 import { messages } from '../model/messages.js';
 import type { Message } from '../model/diagnostic.js';
 import type { BlockKind } from '../scan/blockHeader.js';
 import { SCHEMAS, type JsonSchema } from './schemas.js';
+import * as compiled from './compiledValidators.js';
 import { nearest } from '../text/editDistance.js';
-
-type AjvClass = typeof ajv2020.Ajv2020;
-const Ajv2020: AjvClass = ajv2020.Ajv2020 ?? (ajv2020 as unknown as { default: { Ajv2020: AjvClass } }).default.Ajv2020;
 
 export interface SchemaProblem {
   readonly message: Message;
@@ -26,25 +23,15 @@ export interface SchemaProblem {
   readonly rename?: string;
 }
 
-let ajv: InstanceType<AjvClass> | null = null;
-const compiled = new Map<BlockKind, ValidateFunction>();
+/** A compiled validator: true when the data pass, else false with the errors beside it. */
+interface ValidateFunction {
+  (data: unknown): boolean;
+  errors?: ErrorObject[] | null;
+}
 
-/** The validator of a kind, compiled on first use: a notebook of ramps never compiles the DSC schema. */
+/** The validator of a kind, compiled from its schema when Vitrine was built (scripts/compile-schemas.mjs). */
 function validatorOf(kind: BlockKind): ValidateFunction {
-  let v = compiled.get(kind);
-  if (v) return v;
-  if (!ajv) {
-    ajv = new Ajv2020({ allErrors: true, strict: true, allowUnionTypes: true, strictRequired: false, verbose: true, validateSchema: false });
-    ajv.addKeyword({ keyword: 'quantityOf', schemaType: 'string' });
-    // Checked on the quantity once its unit is read (parseBlock.ts), not on the text.
-    ajv.addKeyword({ keyword: 'quantityExclusiveMinimum', schemaType: 'number' });
-    // A bound (`< 3e-7 Torr`) is enough for this quantity: kept as a bound (parseBlock.ts).
-    ajv.addKeyword({ keyword: 'quantityBound', schemaType: 'boolean' });
-    ajv.addKeyword({ keyword: 'recommended', schemaType: 'object' });
-  }
-  v = ajv.compile(SCHEMAS[kind] as JsonSchema);
-  compiled.set(kind, v);
-  return v;
+  return (compiled as unknown as Record<BlockKind, ValidateFunction>)[kind];
 }
 
 /** Keys the schema names as recommended, with the reason shown to the user. */

@@ -16,11 +16,18 @@ export interface BodyLine {
 
 /**
  * The lines of a block's body, packed three integers to a line (no object per line): a 600-row
- * table keeps one array, not 600 objects.
+ * table keeps one array, not 600 objects. The scanner writes the lines of all its fences into one
+ * growing store and gives each finished block an exact copy of its own.
  */
 export class BodyLines {
-  private data = new Int32Array(3 * 16);
-  private count = 0;
+  private data: Int32Array;
+  private count: number;
+
+  /** `data` holds start, end and pad of each line; `count` lines of it are used. */
+  constructor(data: Int32Array = new Int32Array(48), count = 0) {
+    this.data = data;
+    this.count = count;
+  }
 
   get length(): number {
     return this.count;
@@ -38,13 +45,18 @@ export class BodyLines {
     this.count++;
   }
 
-  /** Gives back the room kept for more lines (once the block is complete). */
-  trim(): void {
-    if (this.data.length > 3 * this.count) this.data = this.data.slice(0, 3 * this.count);
-  }
-
   pop(): void {
     if (this.count > 0) this.count--;
+  }
+
+  /** Lines [from, length) as a store of their own, exactly their size. */
+  copyFrom(from: number): BodyLines {
+    return new BodyLines(this.data.slice(3 * from, 3 * this.count), this.count - from);
+  }
+
+  /** Forgets lines from `from` on. */
+  truncate(from: number): void {
+    this.count = Math.min(this.count, Math.max(0, from));
   }
 
   start(i: number): number {

@@ -34,16 +34,20 @@ export function stripBom(text: string): string {
 /** Maps offsets to line/character and back for one text. Built once per document version. */
 export class LineIndex {
   /** Offset where each line starts. */
-  private readonly lineStarts: number[];
+  private readonly lineStarts: Int32Array;
 
   constructor(readonly text: string) {
-    const starts = [0];
     if (text.indexOf('\r') < 0) {
-      // Line feeds only (almost every file): the search for the next one is the engine's own.
-      for (let i = text.indexOf('\n'); i >= 0; i = text.indexOf('\n', i + 1)) starts.push(i + 1);
+      // Line feeds only (almost every file): counted, then placed, by the engine's own search.
+      let count = 1;
+      for (let i = text.indexOf('\n'); i >= 0; i = text.indexOf('\n', i + 1)) count++;
+      const starts = new Int32Array(count);
+      let k = 1;
+      for (let i = text.indexOf('\n'); i >= 0; i = text.indexOf('\n', i + 1)) starts[k++] = i + 1;
       this.lineStarts = starts;
       return;
     }
+    const starts = [0];
     for (let i = 0; i < text.length; i++) {
       const c = text.charCodeAt(i);
       if (c === 13 /* \r */) {
@@ -53,7 +57,7 @@ export class LineIndex {
         starts.push(i + 1);
       }
     }
-    this.lineStarts = starts;
+    this.lineStarts = Int32Array.from(starts);
   }
 
   get lineCount(): number {
