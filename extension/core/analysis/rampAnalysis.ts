@@ -347,23 +347,31 @@ function prepare(T: Float64Array, h: Float64Array, timeCol: Float64Array | null,
  */
 function keptRows(T: Float64Array, h: Float64Array, t: Float64Array | null): { rows: Int32Array | null; dropped: number; firstDropped: number } {
   const n = T.length;
-  const keep = new Int32Array(n);
+  // Made at the first repeat: most scans have none.
+  let keep: Int32Array | null = null;
   let m = 0;
   let firstDropped = -1;
   // The last kept row at each time: a repeat has the same time, so only that row is compared.
-  const atTime = new Map<number, number>();
+  const atTime = t ? new Map<number, number>() : null;
   for (let i = 0; i < n; i++) {
     let repeat: boolean;
-    if (t) {
+    if (t && atTime) {
       const j = atTime.get(t[i]);
       repeat = j !== undefined && T[j] === T[i] && h[j] === h[i];
       if (!repeat) atTime.set(t[i], i);
     } else repeat = i > 0 && T[i] === T[i - 1] && h[i] === h[i - 1];
     if (repeat) {
-      if (firstDropped < 0) firstDropped = i;
-    } else keep[m++] = i;
+      if (firstDropped < 0) {
+        firstDropped = i;
+        keep = new Int32Array(n);
+        for (let k = 0; k < i; k++) keep[k] = k;
+      }
+    } else {
+      if (keep) keep[m] = i;
+      m++;
+    }
   }
-  return m === n ? { rows: null, dropped: 0, firstDropped } : { rows: keep.slice(0, m), dropped: n - m, firstDropped };
+  return keep === null ? { rows: null, dropped: 0, firstDropped } : { rows: keep.slice(0, m), dropped: n - m, firstDropped };
 }
 
 /** The ramp chart: the scan by segment, the fitted lines, and Tg, Tonset, Tf marked. */

@@ -19,7 +19,7 @@ import { quantityFields, type QuantityField } from '../schema/quantityFields.js'
 import { SCHEMAS } from '../schema/schemas.js';
 import { recommendedKeys, validateMetadata } from '../schema/validator.js';
 import { BodyMap, type BodyLineList } from '../text/bodyMap.js';
-import { hashText } from '../text/hash.js';
+import { hashParts, hashText } from '../text/hash.js';
 import { resolveNotebookPath } from '../text/notebookPath.js';
 import { toOneBasedPoint, type Span } from '../text/positions.js';
 
@@ -207,7 +207,7 @@ export function blockTextKey(file: string, source: string, fence: FencedBlock): 
     // Each line starts after the line break of the one before: the text, the first line's start and the count fix them all.
     if (lines.length > 0) layout += `;${lines.start(0) - d}+${lines.length}`;
   } else for (let i = 0; i < lines.length; i++) layout += `,${lines.start(i) - d}.${lines.pad(i)}`;
-  return hashText(`${file}\u0000${source}\u0000${layout}`);
+  return hashParts([file, source, layout]);
 }
 
 /** Do the body lines follow each other directly, each after a line feed, with no pad? */

@@ -226,8 +226,12 @@ function readPlainRow(text: string, delimiter: Delimiter, ncol: number, out: Flo
 class ColumnBuffers {
   private data: Float64Array[];
   length = 0;
-  constructor(private readonly ncol: number) {
-    this.data = Array.from({ length: ncol }, () => new Float64Array(64));
+  /** `capacity`: the rows expected at most (the lines below the header), so that the columns are made once. */
+  constructor(
+    private readonly ncol: number,
+    capacity: number,
+  ) {
+    this.data = Array.from({ length: ncol }, () => new Float64Array(Math.max(8, capacity)));
   }
   push(row: ArrayLike<number>): void {
     if (this.length === this.data[0]?.length) this.data = this.data.map((d) => {
@@ -239,7 +243,8 @@ class ColumnBuffers {
     this.length++;
   }
   column(j: number): Float64Array {
-    return this.data[j].slice(0, this.length);
+    const d = this.data[j];
+    return d.length === this.length ? d : d.slice(0, this.length);
   }
 }
 
@@ -392,8 +397,8 @@ export function parseTable(lines: readonly string[], columnsMap: Readonly<Record
   });
 
   const ncol = hcells.length;
-  const rows = new ColumnBuffers(ncol);
-  const rowLines: number[] = [];
+  const rows = new ColumnBuffers(ncol, lines.length - headerIndex - 1);
+  const rowLines = new Int32Array(Math.max(0, lines.length - headerIndex - 1));
   const plain = new Float64Array(ncol);
   const temperatureAt = roles.indexOf('temperature');
   /** Converts a plain row in place; false when a value is not finite or a temperature not above 0 K (the general reader reports it). */
@@ -416,7 +421,7 @@ export function parseTable(lines: readonly string[], columnsMap: Readonly<Record
     const startsLikeNumber = (first >= 48 && first <= 57) || first === 45 || first === 43 || first === 46 || first === SPACE || first === TAB;
     if (startsLikeNumber && readPlainRow(text, delimiter, ncol, plain) && convertPlain()) {
       rows.push(plain);
-      rowLines.push(i);
+      rowLines[rows.length - 1] = i;
       continue;
     }
     if (isSkippedLine(text)) continue;
@@ -480,7 +485,7 @@ export function parseTable(lines: readonly string[], columnsMap: Readonly<Record
     }
     if (ok) {
       rows.push(row);
-      rowLines.push(i);
+      rowLines[rows.length - 1] = i;
     }
   }
   if (cold) report(messages.tableTemperatureNotPositive(cold.text, cold.header, coldRows), cold.line, cold.start, cold.end);
@@ -505,5 +510,5 @@ export function parseTable(lines: readonly string[], columnsMap: Readonly<Record
   });
   const byRole = new Map<ColumnRole, TableColumn>();
   for (const col of columns) if (col.role) byRole.set(col.role, col);
-  return { columns, rowCount: rows.length, rowLines: Int32Array.from(rowLines), problems, delimiter, byRole, preamble, unitsLine: unitsIndex >= 0 ? unitsIndex : null };
+  return { columns, rowCount: rows.length, rowLines: rows.length === rowLines.length ? rowLines : rowLines.slice(0, rows.length), problems, delimiter, byRole, preamble, unitsLine: unitsIndex >= 0 ? unitsIndex : null };
 }
