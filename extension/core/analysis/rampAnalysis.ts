@@ -105,6 +105,8 @@ const VARIANTS: readonly RampChoices[] = [{ gapScale: 1.5 }, { gapScale: 0.7 }, 
 interface RampMemo {
   prepared?: { readonly curve: Curve; readonly time: Float64Array | null; readonly rows: Int32Array | null; readonly dropped: number; readonly firstDropped: number; readonly segments: readonly Segment[] };
   readonly cooling: Map<string, CoolingFigures | CoolingFailure>;
+  /** Rows of the lowest and the highest temperature of the cooling segment. */
+  extremes?: { readonly lowest: number; readonly highest: number };
   readonly stages: Map<number, CoolingMemo>;
 }
 
@@ -256,12 +258,8 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext, choices: R
     note(messages.rampNoCooling(), block.header.kindSpan);
   } else {
     let c = slice(curve, cooling);
-    let lowest = cooling.start;
-    let highest = cooling.start;
-    for (let i = cooling.start; i < cooling.end; i++) {
-      if (curve.T[i] < curve.T[lowest]) lowest = i;
-      if (curve.T[i] > curve.T[highest]) highest = i;
-    }
+    const { lowest, highest } = (memo?.extremes ?? extremes(curve.T, cooling));
+    if (memo) memo.extremes = { lowest, highest };
     if (choices.coolTrim) {
       const lo = curve.T[lowest] + choices.coolTrim;
       const hi = curve.T[highest] - choices.coolTrim;
@@ -328,6 +326,18 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext, choices: R
     return hcol.role === 'volume' ? { ...f, measured: 'volume' } : f;
   };
   return { analysis: { results, diagnostics, figure }, lines };
+}
+
+/** Rows of the lowest and the highest temperature of a segment. */
+function extremes(T: Float64Array, s: Segment): { lowest: number; highest: number } {
+  let lowest = s.start;
+  let highest = s.start;
+  for (let i = s.start; i < s.end; i++) {
+    const t = T[i];
+    if (t < T[lowest]) lowest = i;
+    if (t > T[highest]) highest = i;
+  }
+  return { lowest, highest };
 }
 
 /** The rows kept (exact repeats left out), as a curve, and the scan's segments. */

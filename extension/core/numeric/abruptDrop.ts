@@ -10,12 +10,46 @@ export function firstAbruptDrop(h: ArrayLike<number>, floor = 0): { index: numbe
   if (n < 20) return { index: -1, drop: 0 };
   const steps = new Float64Array(n - 1);
   for (let i = 0; i < n - 1; i++) steps[i] = Math.abs(h[i + 1] - h[i]);
-  steps.sort();
-  const typical = Math.max(steps[Math.floor(steps.length / 2)], floor);
+  const typical = Math.max(kthSmallest(steps, Math.floor(steps.length / 2)), floor);
   if (!(typical > 0)) return { index: -1, drop: 0 };
   for (let i = 1; i < n; i++) {
     const drop = h[i - 1] - h[i];
     if (drop > 10 * typical && drop > 3 * Math.abs(h[Math.min(n - 1, i + 1)] - h[i])) return { index: i, drop };
   }
   return { index: -1, drop: 0 };
+}
+
+/**
+ * The k-th smallest value (0-based) of the array, which it reorders: Hoare's selection
+ * (Commun. ACM 4, 321 (1961), "FIND"), with the median of three as pivot; the value a sort
+ * would put at k, in linear time on average.
+ */
+export function kthSmallest(a: Float64Array, k: number): number {
+  let lo = 0;
+  let hi = a.length - 1;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    // Median of three as the pivot.
+    if (a[mid] < a[lo]) swap(a, mid, lo);
+    if (a[hi] < a[lo]) swap(a, hi, lo);
+    if (a[hi] < a[mid]) swap(a, hi, mid);
+    const pivot = a[mid];
+    let i = lo;
+    let j = hi;
+    while (i <= j) {
+      while (a[i] < pivot) i++;
+      while (a[j] > pivot) j--;
+      if (i <= j) swap(a, i++, j--);
+    }
+    if (k <= j) hi = j;
+    else if (k >= i) lo = i;
+    else return a[k];
+  }
+  return a[k];
+}
+
+function swap(a: Float64Array, i: number, j: number): void {
+  const t = a[i];
+  a[i] = a[j];
+  a[j] = t;
 }

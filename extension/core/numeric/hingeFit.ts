@@ -62,6 +62,8 @@ class PrefixSums {
   readonly sy: Float64Array;
   readonly sxy: Float64Array;
   readonly syy: Float64Array;
+  /** The breakpoint given to `hingeSse` and the SSE it found. */
+  readonly io = new Float64Array(2);
 
   /** Sums of x and y (n points each), written into `sums`: five arrays of n + 1. */
   constructor(x: Float64Array, y: Float64Array, sums: readonly Float64Array[]) {
@@ -102,9 +104,14 @@ function lineOver(p: PrefixSums, a: number, b: number, out: LineCoefficients): b
   return true;
 }
 
-/** SSE of the constrained hinge fit with the joint at tb, k = number of points with x ≤ tb (Infinity when singular). */
-function hingeSse(p: PrefixSums, tb: number, k: number): number {
+/**
+ * SSE of the constrained hinge fit with the joint at tb = p.io[0], k = number of points with x ≤ tb
+ * (Infinity when singular), written to p.io[1]. (A double passed to or returned from a call that is
+ * not inlined becomes a new heap number, and this runs about a thousand times per fit.)
+ */
+function hingeSse(p: PrefixSums, k: number): void {
   const n = p.n;
+  const tb = p.io[0];
   const sxL = p.sx[k];
   const sxR = p.sx[n] - sxL;
   const nR = n - k;
@@ -112,16 +119,17 @@ function hingeSse(p: PrefixSums, tb: number, k: number): number {
   const sv = sxR - nR * tb;
   const suu = p.sxx[k] - 2 * tb * sxL + k * tb * tb;
   const svv = p.sxx[n] - p.sxx[k] - 2 * tb * sxR + nR * tb * tb;
-  if (!(suu > 0) || !(svv > 0)) return Infinity;
+  p.io[1] = Infinity;
+  if (!(suu > 0) || !(svv > 0)) return;
   const d = n - (su * su) / suu - (sv * sv) / svv;
-  if (!(Math.abs(d) > 0)) return Infinity;
+  if (!(Math.abs(d) > 0)) return;
   const sy = p.sy[n];
   const suy = p.sxy[k] - tb * p.sy[k];
   const svy = p.sxy[n] - p.sxy[k] - tb * (p.sy[n] - p.sy[k]);
   const c = (sy - (su * suy) / suu - (sv * svy) / svv) / d;
   const sg = (suy - su * c) / suu;
   const sl = (svy - sv * c) / svv;
-  return Math.max(0, p.syy[n] - (c * sy + sg * suy + sl * svy));
+  p.io[1] = Math.max(0, p.syy[n] - (c * sy + sg * suy + sl * svy));
 }
 
 /** Constrained hinge fit with the joint at tb, k = number of points with x ≤ tb, with the inverse of its normal matrix. */
@@ -270,33 +278,44 @@ export function fitHinge(xIn: ArrayLike<number>, yIn: ArrayLike<number>, options
   const hi = Math.min(x[n - nMin], x[n - 1] - minSpan);
   if (!(lo <= hi)) return { ok: false, reason: x[n - 1] - x[0] < 2 * minSpan ? 'too-short-span' : 'too-few-points' };
 
-  let bestSse = Infinity;
-  let tb = NaN;
-  const consider = (t: number): void => {
+  // Updated in place (a captured variable would take a new heap number at every write).
+  const best = { sse: Infinity, tb: NaN };
+  /** `below`: the points at or below t, when known. */
+  const consider = (t: number, below: number): void => {
     if (!(t >= lo && t <= hi)) return;
-    const sse = hingeSse(p, t, countAtOrBelow(x, t));
-    if (sse < bestSse) {
-      bestSse = sse;
-      tb = t;
+    p.io[0] = t;
+    hingeSse(p, below);
+    if (p.io[1] < best.sse) {
+      best.sse = p.io[1];
+      best.tb = t;
     }
   };
-  consider(lo);
-  consider(hi);
+  consider(lo, countAtOrBelow(x, lo));
+  consider(hi, countAtOrBelow(x, hi));
   const left: LineCoefficients = { sse: 0, slope: 0, intercept: 0 };
   const right: LineCoefficients = { sse: 0, slope: 0, intercept: 0 };
   for (let k = 1; k < n; k++) {
     const xa = x[k - 1];
     const xb = x[k];
     if (xb < lo || xa > hi) continue;
-    if (xa >= lo && xa <= hi) consider(xa);
+    // Sorted x: k points lie at or below x[k − 1] unless x[k] equals it.
+    if (xa >= lo && xa <= hi) {
+      p.io[0] = xa;
+      hingeSse(p, xb > xa ? k : countAtOrBelow(x, xa));
+      if (p.io[1] < best.sse) {
+        best.sse = p.io[1];
+        best.tb = xa;
+      }
+    }
     if (xb > xa && lineOver(p, 0, k, left) && lineOver(p, k, n, right) && left.slope !== right.slope) {
       const t = (right.intercept - left.intercept) / (left.slope - right.slope);
-      if (t > xa && t < xb && t >= lo && t <= hi && left.sse + right.sse < bestSse) {
-        bestSse = left.sse + right.sse;
-        tb = t;
+      if (t > xa && t < xb && t >= lo && t <= hi && left.sse + right.sse < best.sse) {
+        best.sse = left.sse + right.sse;
+        best.tb = t;
       }
     }
   }
+  const tb = best.tb;
   if (!Number.isFinite(tb)) return { ok: false, reason: 'degenerate' };
 
   const final = hingeAt(p, tb, countAtOrBelow(x, tb));
@@ -307,7 +326,12 @@ export function fitHinge(xIn: ArrayLike<number>, yIn: ArrayLike<number>, options
 
   // Profile-likelihood interval: walk out from the optimum, then bisect the crossing.
   const threshold = sse * (1 + fisherFQuantile(0.95, 1, Math.max(1, dof)) / Math.max(1, dof));
-  const profile = (t: number): number => hingeSse(p, t, countAtOrBelow(x, t));
+  /** Is the profile SSE at t above the threshold (t outside the interval)? */
+  const outside = (t: number): boolean => {
+    p.io[0] = t;
+    hingeSse(p, countAtOrBelow(x, t));
+    return p.io[1] > threshold;
+  };
   const step = Math.max((hi - lo) / 20000, 1e-6);
   const edge = (dir: 1 | -1): { at: number; open: boolean } => {
     const limit = dir > 0 ? hi : lo;
@@ -316,12 +340,12 @@ export function fitHinge(xIn: ArrayLike<number>, yIn: ArrayLike<number>, options
     let grow = step;
     for (;;) {
       const next = dir > 0 ? Math.min(limit, t + grow) : Math.max(limit, t - grow);
-      if (profile(next) > threshold) {
+      if (outside(next)) {
         let a = inside;
         let b = next;
         for (let i = 0; i < 60; i++) {
           const m = 0.5 * (a + b);
-          if (profile(m) > threshold) b = m;
+          if (outside(m)) b = m;
           else a = m;
         }
         return { at: 0.5 * (a + b), open: false };
@@ -353,26 +377,28 @@ export function fitHinge(xIn: ArrayLike<number>, yIn: ArrayLike<number>, options
   }
   const nLow = countAtOrBelow(x, tb);
   const full = fullCovariance(p, tb, nLow, final.sg, final.sl);
-  return {
-    ok: true,
-    fit: {
-      n,
-      breakpoint: tb + mx,
-      interval: [low.at + mx, high.at + mx],
-      intervalOpen: low.open || high.open,
-      hAtBreak: final.c + my,
-      slopeLow: final.sg,
-      slopeHigh: final.sl,
-      seSlopeLow: Math.sqrt(sigma2 * (full ? full[1][1] : final.inv[1][1])),
-      seSlopeHigh: Math.sqrt(sigma2 * (full ? full[2][2] : final.inv[2][2])),
-      sse,
-      sigma: Math.sqrt(sigma2),
-      pTransition,
-      atEdge: tb <= lo + 1e-9 * Math.max(1, Math.abs(lo)) || tb >= hi - 1e-9 * Math.max(1, Math.abs(hi)),
-      nLow,
-      nHigh: n - nLow,
-      durbinWatson: den > 0 ? num / den : 2,
-      range: [x[0] + mx, x[n - 1] + mx],
-    },
+  // Every figure a plain number before the result is made (its shape stays the same from fit to fit).
+  const seSlopeLow = Math.sqrt(sigma2 * (full ? full[1][1] : final.inv[1][1]));
+  const seSlopeHigh = Math.sqrt(sigma2 * (full ? full[2][2] : final.inv[2][2]));
+  const atEdge = tb <= lo + 1e-9 * Math.max(1, Math.abs(lo)) || tb >= hi - 1e-9 * Math.max(1, Math.abs(hi));
+  const fit: HingeFit = {
+    n,
+    breakpoint: tb + mx,
+    interval: [low.at + mx, high.at + mx],
+    intervalOpen: low.open || high.open,
+    hAtBreak: final.c + my,
+    slopeLow: final.sg,
+    slopeHigh: final.sl,
+    seSlopeLow,
+    seSlopeHigh,
+    sse,
+    sigma: Math.sqrt(sigma2),
+    pTransition,
+    atEdge,
+    nLow,
+    nHigh: n - nLow,
+    durbinWatson: den > 0 ? num / den : 2,
+    range: [x[0] + mx, x[n - 1] + mx],
   };
+  return { ok: true, fit };
 }

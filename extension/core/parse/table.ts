@@ -142,6 +142,16 @@ const POWERS_OF_TEN = Array.from({ length: 23 }, (_, k) => Number(`1e${k}`));
  * the one `Number` reads. NaN for anything else: the caller reads the cell with `Number`.
  */
 export function plainNumber(text: string, start: number, end: number): number {
+  return readPlainNumber(text, start, end, ONE, 0) ? ONE[0] : NaN;
+}
+
+const ONE = new Float64Array(1);
+
+/**
+ * `plainNumber` written to out[at] (a double returned from a call that is not inlined becomes a
+ * new heap number, and this runs for every cell); false when the cell is left to `Number`.
+ */
+function readPlainNumber(text: string, start: number, end: number, out: Float64Array, at: number): boolean {
   let i = start;
   let c = text.charCodeAt(i);
   const negative = c === 45;
@@ -165,7 +175,7 @@ export function plainNumber(text: string, start: number, end: number): number {
       digits++;
     }
   }
-  if (!seen || digits > 15) return NaN;
+  if (!seen || digits > 15) return false;
   if (i < end && (c === 101 || c === 69)) {
     c = text.charCodeAt(++i);
     const minus = c === 45;
@@ -176,12 +186,13 @@ export function plainNumber(text: string, start: number, end: number): number {
       exponent = exponent * 10 + (c - 48);
       any = true;
     }
-    if (!any) return NaN;
+    if (!any) return false;
     scale += minus ? -exponent : exponent;
   }
-  if (i !== end || scale < -22 || scale > 22) return NaN;
+  if (i !== end || scale < -22 || scale > 22) return false;
   const value = scale < 0 ? mantissa / POWERS_OF_TEN[-scale] : mantissa * POWERS_OF_TEN[scale];
-  return negative ? -value : value;
+  out[at] = negative ? -value : value;
+  return true;
 }
 
 /**
@@ -207,13 +218,12 @@ function readPlainRow(text: string, delimiter: Delimiter, ncol: number, out: Flo
       return i === n && j === ncol && (sep === -1 || j > 0);
     }
     if (j === ncol) return false;
-    let value = plainNumber(text, start, end);
-    if (Number.isNaN(value)) {
+    if (!readPlainNumber(text, start, end, out, j)) {
       const cell = text.slice(start, end);
       if (!NUMBER.test(cell)) return false;
-      value = Number(cell);
+      out[j] = Number(cell);
     }
-    out[j++] = value;
+    j++;
     if (i === n) return j === ncol;
     if (sep === -1) continue;
     if (text.charCodeAt(i) !== sep) return false;
@@ -495,18 +505,9 @@ export function parseTable(lines: readonly string[], columnsMap: Readonly<Record
     const values = rows.column(j);
     const { symbol, unit, convention } = headers[j];
     const role = roles[j];
-    return {
-      header: c.text,
-      symbol,
-      writtenUnit: unit,
-      role,
-      unit: units[j],
-      values,
-      headerLine: headerIndex,
-      headerStart: c.start,
-      headerEnd: c.end,
-      ...(convention && (role === 'heat_flow' || role === 'specific_heat_flow') ? { convention } : {}),
-    };
+    const column: TableColumn = { header: c.text, symbol, writtenUnit: unit, role, unit: units[j], values, headerLine: headerIndex, headerStart: c.start, headerEnd: c.end };
+    // Added, not spread in: a spread makes a new shape for every table.
+    return convention && (role === 'heat_flow' || role === 'specific_heat_flow') ? { ...column, convention } : column;
   });
   const byRole = new Map<ColumnRole, TableColumn>();
   for (const col of columns) if (col.role) byRole.set(col.role, col);
