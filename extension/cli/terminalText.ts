@@ -10,6 +10,9 @@
  */
 // eslint-disable-next-line no-control-regex -- these are the characters to find
 const UNSAFE = /[\0-\x09\x0b-\x1f\x7f-\x9f\u061c\u200e\u200f\u2028\u2029\u202a-\u202e\u2066-\u2069]/g;
+/** The same characters, to look for one without a copy of the text (most output has none). */
+// eslint-disable-next-line no-control-regex -- these are the characters to find
+const ANY_UNSAFE = /[\0-\x09\x0b-\x1f\x7f-\x9f\u061c\u200e\u200f\u2028\u2029\u202a-\u202e\u2066-\u2069]/;
 
 function escapeOne(c: string): string {
   if (c === '\t') return '\\t';
@@ -20,7 +23,7 @@ function escapeOne(c: string): string {
 
 /** Text for a terminal: line feeds kept, every other control character escaped. */
 export function terminalText(text: string): string {
-  return text.replace(UNSAFE, escapeOne);
+  return ANY_UNSAFE.test(text) ? text.replace(UNSAFE, escapeOne) : text;
 }
 
 /**
@@ -29,5 +32,6 @@ export function terminalText(text: string): string {
  * escapes, which every JSON reader decodes to the same strings.
  */
 export function terminalJson(value: unknown): string {
-  return JSON.stringify(value, null, 2).replace(UNSAFE, (c) => `\\u${c.charCodeAt(0).toString(16).padStart(4, '0')}`);
+  const json = JSON.stringify(value, null, 2);
+  return ANY_UNSAFE.test(json) ? json.replace(UNSAFE, (c) => `\\u${c.charCodeAt(0).toString(16).padStart(4, '0')}`) : json;
 }

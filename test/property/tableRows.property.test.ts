@@ -1,6 +1,7 @@
 import assert from 'node:assert/strict';
 import fc from 'fast-check';
 import { parseTable, plainNumber } from '../../extension/core/parse/table.js';
+import { linesOfText } from '../../extension/core/parse/tableLines.js';
 import { propertyOptions } from '../support/propertyOptions.js';
 
 // Rows of a data table, as instruments and people write them: plain numbers, numbers with spaces,
@@ -51,6 +52,11 @@ describe('data table rows against a plain reference reader', () => {
         ([sep, lines]) => {
           const header = sep === ' ' ? 'T/°C h/nm' : ['T/°C', 'h/nm'].join(sep);
           const table = parseTable([header, ...lines]);
+          // Read in place from the joined text, the same table.
+          const inPlace = parseTable(linesOfText([header, ...lines].join('\n')));
+          assert.equal(inPlace.rowCount, table.rowCount);
+          table.columns.forEach((c, j) => assert.deepEqual(inPlace.columns[j].values, c.values));
+          assert.deepEqual(inPlace.rowLines, table.rowLines);
           const expected = reference(lines, sep);
           const T = table.byRole.get('temperature');
           const h = table.byRole.get('thickness');
@@ -92,5 +98,25 @@ describe('a plain number read from its characters', () => {
     for (const text of ['312.4567', '-0.0001', '1.234e-7', '400.0123', '6.02E+3', '0', '-0', '.5', '12.']) {
       assert.ok(Object.is(plainNumber(text, 0, text.length), Number(text)), text);
     }
+  });
+});
+
+// A table's lines are found once and read in place; as strings they must be the lines of
+// `split(/\r\n|\r|\n/)` (LF, CR LF and CR breaks, common practice, no source).
+describe('table lines read in place', () => {
+  it('are the lines a split at LF, CR LF and CR gives, with their bounds in the text', () => {
+    fc.assert(
+      fc.property(fc.array(fc.constantFrom('a', '1', ',', ' ', '\n', '\r', '\r\n', '\t', '-'), { maxLength: 40 }), (parts) => {
+        const text = parts.join('');
+        const expected = text.split(/\r\n|\r|\n/);
+        const lines = linesOfText(text);
+        assert.equal(lines.length, expected.length, JSON.stringify(text));
+        expected.forEach((line, i) => {
+          assert.equal(lines.line(i), line);
+          assert.equal(lines.text(i).slice(lines.start(i), lines.end(i)), line);
+        });
+      }),
+      propertyOptions(2000, 20261205),
+    );
   });
 });

@@ -12,6 +12,7 @@ import { messages } from '../model/messages.js';
 import { escapePointer, parseMetadata, valueAt, type Metadata } from '../parse/metadata.js';
 import { parseQuantity, parseTgMultiple, type Quantity } from '../parse/quantity.js';
 import { parseTable, type Table } from '../parse/table.js';
+import { linesOfArray, linesOfText, type TableLines } from '../parse/tableLines.js';
 import { CANONICAL, dimensionWords, lookupUnit, suggestUnit } from '../parse/units.js';
 import { ID_PATTERN, type BlockHeader, type BlockKind } from '../scan/blockHeader.js';
 import type { FencedBlock } from '../scan/fenceScanner.js';
@@ -75,12 +76,13 @@ const TABLE_HEAD_CHARACTERS = 1000;
  * instrument's preamble does not fill the excerpt; from the first problem's line instead when that
  * lies further below the header than the excerpt reaches.
  */
-export function tableHeadLines(lines: readonly string[], table: Table): TableHeadLines {
+export function tableHeadLines(lines: TableLines, table: Table): TableHeadLines {
   const header = table.columns.length > 0 ? table.columns[0].headerLine : 0;
   let firstProblem = Infinity;
   for (const p of table.problems) if (p.line >= header && p.line < firstProblem) firstProblem = p.line;
   const first = Math.min(firstProblem >= header + TABLE_HEAD_LINES ? firstProblem : header, Math.max(0, lines.length - 1));
-  const shown = lines.slice(first, first + TABLE_HEAD_LINES);
+  const shown: string[] = [];
+  for (let i = first; i < Math.min(lines.length, first + TABLE_HEAD_LINES); i++) shown.push(lines.line(i));
   return {
     first,
     lines: shown.map((l) => (l.length > TABLE_HEAD_CHARACTERS ? `${l.slice(0, TABLE_HEAD_CHARACTERS)}…` : l)),
@@ -210,6 +212,16 @@ export function blockTextKey(file: string, source: string, fence: FencedBlock): 
   return hashParts([file, source, layout]);
 }
 
+/** Is body[start, end) the `---` line (three hyphens, then only spaces and tabs)? */
+function isSeparator(body: string, start: number, end: number): boolean {
+  if (end - start < 3 || body.charCodeAt(start) !== 45 || body.charCodeAt(start + 1) !== 45 || body.charCodeAt(start + 2) !== 45) return false;
+  for (let i = start + 3; i < end; i++) {
+    const c = body.charCodeAt(i);
+    if (c !== 32 && c !== 9) return false;
+  }
+  return true;
+}
+
 /** Do the body lines follow each other directly, each after a line feed, with no pad? */
 function contiguousLines(lines: BodyLineList, source: string, d: number): boolean {
   for (let i = 0; i < lines.length; i++) {
@@ -242,16 +254,23 @@ export function parseBlock(input: ParseInput, data: DataTableSource): ParsedBloc
 
   // Body: metadata, then optionally `---` and a table.
   const map = new BodyMap(fence.bodyLines, fence.infoSpan.end, input.fence.span.start);
-  const bodyLines = fence.body.split('\n');
+  const body = fence.body;
+  // The `---` line that ends the metadata: its index, and where it starts and ends in the body.
   let separator = -1;
-  for (let i = 0; i < bodyLines.length; i++) {
-    if (/^---[ \t]*$/.test(bodyLines[i])) {
+  let separatorStart = body.length;
+  let separatorEnd = body.length;
+  for (let i = 0, start = 0; start <= body.length; i++) {
+    let end = body.indexOf('\n', start);
+    if (end < 0) end = body.length;
+    if (isSeparator(body, start, end)) {
       separator = i;
+      separatorStart = start;
+      separatorEnd = end;
       break;
     }
+    start = end + 1;
   }
-  const metaEndLine = separator >= 0 ? separator : bodyLines.length;
-  const metaText = fence.body.length === 0 ? '' : bodyLines.slice(0, metaEndLine).join('\n');
+  const metaText = separator >= 0 ? body.slice(0, Math.max(0, separatorStart - 1)) : body;
   const metadata = parseMetadata(metaText);
   const toDoc = (s: Span): Span => map.spanToDocument(s);
 
@@ -376,7 +395,8 @@ export function parseBlock(input: ParseInput, data: DataTableSource): ParsedBloc
   let dataStamp = '';
   let rowLineToDoc: (line: number) => Span = () => headerSpan;
   const columnsMap = (typeof metadata.data.columns === 'object' && metadata.data.columns !== null ? metadata.data.columns : {}) as Record<string, string>;
-  const inlineLines = separator >= 0 ? bodyLines.slice(separator + 1) : null;
+  // The lines below `---`, read in place (a plain row never becomes a string of its own).
+  const inlineLines = separator < 0 ? null : separatorEnd >= body.length ? linesOfArray([]) : linesOfText(body.slice(separatorEnd + 1));
   const dataValue = metadata.data.data;
   if (KINDS_WITH_DATA.has(kind) && !isEmpty) {
     if (inlineLines && typeof dataValue === 'string') {

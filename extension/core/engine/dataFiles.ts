@@ -8,6 +8,7 @@
  */
 import { tableHeadLines, type DataTableRead, type DataTableSource, type TableHeadLines } from '../block/parseBlock.js';
 import { parseTable, type Table } from '../parse/table.js';
+import { linesOfText, type TableLines } from '../parse/tableLines.js';
 import { hashText } from '../text/hash.js';
 import type { DataFileRead, NotebookHost } from './host.js';
 
@@ -21,7 +22,7 @@ interface Entry {
   readonly read: DataFileRead;
   readonly pushed: boolean;
   readonly stamp: string;
-  lines?: readonly string[];
+  lines?: TableLines;
   /** Per column map: the table, and the lines shown beside its errors. */
   readonly tables: Map<string, { readonly table: Table; readonly head: TableHeadLines }>;
 }
@@ -115,7 +116,7 @@ function entry(text: string | null, read: DataFileRead, pushed: boolean, maxByte
   return { read, pushed, stamp, tables: new Map() };
 }
 
-function splitLines(raw: string): string[] {
-  const text = raw.startsWith('\uFEFF') ? raw.slice(1) : raw;
-  return text.split(/\r\n|\r|\n/);
+/** The lines of a data file (a byte-order mark left out), found once; a line is a string only when asked for. */
+function splitLines(raw: string): TableLines {
+  return linesOfText(raw.startsWith('\uFEFF') ? raw.slice(1) : raw);
 }

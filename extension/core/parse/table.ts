@@ -45,6 +45,7 @@ import {
   type Delimiter,
 } from './tableCells.js';
 import { isSkippedLine, locateTable, type PreambleEntry } from './tableLayout.js';
+import { linesOfArray, type TableLines } from './tableLines.js';
 import { CANONICAL, hasDimension, lookupUnit, toCanonical, suggestUnit } from './units.js';
 
 export { ROLE_DIMENSION, ROLE_SYMBOLS, roleOfSymbol, type ColumnRole } from './columnRoles.js';
@@ -202,10 +203,10 @@ function readPlainNumber(text: string, start: number, end: number, out: Float64A
  * false for anything else (a word, an empty cell, a decimal comma, a clock time, U+2212, a ragged
  * row), which the general reader then takes cell by cell, with its findings.
  */
-function readPlainRow(text: string, delimiter: Delimiter, ncol: number, out: Float64Array): boolean {
+function readPlainRow(text: string, from: number, to: number, delimiter: Delimiter, ncol: number, out: Float64Array): boolean {
   const sep = SEPARATOR[delimiter];
-  const n = text.length;
-  let i = 0;
+  const n = to;
+  let i = from;
   let j = 0;
   for (;;) {
     while (i < n && (text.charCodeAt(i) === SPACE || (text.charCodeAt(i) === TAB && sep !== TAB))) i++;
@@ -231,6 +232,25 @@ function readPlainRow(text: string, delimiter: Delimiter, ncol: number, out: Flo
     if (i === n) return j === ncol;
   }
 }
+
+function isLineArray(lines: readonly string[] | TableLines): lines is readonly string[] {
+  return Array.isArray(lines);
+}
+
+/** A unit conversion v ↦ v·factor + offset, its coefficients beside it for the plain-row reader. */
+interface Conversion {
+  (v: number): number;
+  readonly factor: number;
+  readonly offset: number;
+  readonly identity: boolean;
+}
+
+function conversion(factor: number, offset: number): Conversion {
+  if (factor === 1 && offset === 0) return IDENTITY;
+  return Object.assign((v: number) => v * factor + offset, { factor, offset, identity: false });
+}
+
+const IDENTITY: Conversion = Object.assign((v: number) => v, { factor: 1, offset: 0, identity: true });
 
 /** Columns of numbers that grow as rows are read. */
 class ColumnBuffers {
@@ -262,33 +282,34 @@ class ColumnBuffers {
  * Parses a table. `columnsMap` is the block's `columns:` metadata (role → header text or symbol);
  * `inline` says the lines are an inline table (its first line that is not a comment is the header).
  */
-export function parseTable(lines: readonly string[], columnsMap: Readonly<Record<string, string>> = {}, options: { readonly inline?: boolean } = {}): Table {
+export function parseTable(given: readonly string[] | TableLines, columnsMap: Readonly<Record<string, string>> = {}, options: { readonly inline?: boolean } = {}): Table {
   const problems: TableProblem[] = [];
   const report = (message: Message, line: number, start: number, end: number, replacement?: string): void => {
     if (problems.length < MAX_PROBLEMS) problems.push({ message, line, start, end: Math.max(end, start + 1), ...(replacement === undefined ? {} : { replacement }) });
   };
+  const lines = isLineArray(given) ? linesOfArray(given) : given;
   const names = new Set(Object.values(columnsMap).filter((v): v is string => typeof v === 'string'));
   const layout = locateTable(lines, { inline: options.inline === true, names });
   const { headerIndex, unitsIndex, delimiter, preamble } = layout;
   const empty: Table = { columns: [], rowCount: 0, rowLines: new Int32Array(0), problems, delimiter: 'comma', byRole: new Map(), preamble, unitsLine: null };
   if (headerIndex < 0) {
-    report(messages.tableNoHeader(), 0, 0, lines[0]?.length ?? 0);
+    report(messages.tableNoHeader(), 0, 0, lines.length > 0 ? lines.end(0) - lines.start(0) : 0);
     return empty;
   }
-  const headerText = lines[headerIndex];
+  const headerText = lines.line(headerIndex);
   const hcells = headerCells(headerText, delimiter);
   const headers = hcells.map((c) => readColumnHeader(c, headerIndex));
   // A units line under the header wins over what the header's brackets hold.
   if (unitsIndex >= 0) {
-    const unitCells = withoutTrailingEmpty(splitCells(lines[unitsIndex], delimiter), delimiter);
+    const unitCells = withoutTrailingEmpty(splitCells(lines.line(unitsIndex), delimiter), delimiter);
     unitCells.forEach((u, i) => {
       const unit = isUnitless(u.text) ? '' : stripBrackets(u.text);
       headers[i] = { ...headers[i], unit, unitLine: unitsIndex, unitStart: u.start, unitEnd: u.end };
     });
   }
   let firstRow = (unitsIndex >= 0 ? unitsIndex : headerIndex) + 1;
-  while (firstRow < lines.length && isSkippedLine(lines[firstRow])) firstRow++;
-  const firstCells = firstRow < lines.length ? splitCells(lines[firstRow], delimiter) : [];
+  while (firstRow < lines.length && isSkippedLine(lines.line(firstRow))) firstRow++;
+  const firstCells = firstRow < lines.length ? splitCells(lines.line(firstRow), delimiter) : [];
 
   // Which role does each column have? `columns:` first, then symbols.
   const explicit = new Map<number, ColumnRole>();
@@ -307,7 +328,7 @@ export function parseTable(lines: readonly string[], columnsMap: Readonly<Record
     return r && explicitRoles.has(r) ? null : r;
   });
   // Conversions per column.
-  const convert: Array<((v: number) => number) | null> = [];
+  const convert: Array<Conversion | null> = [];
   const units: string[] = [];
   /**
    * Of each column: whether its cells may be clock times, read as seconds (`h:mm:ss`, `mm:ss`), or
@@ -322,7 +343,7 @@ export function parseTable(lines: readonly string[], columnsMap: Readonly<Record
     const role = roles[i];
     const drop = (message: Message, suggested?: string): void => {
       // The fix writes the suggested unit in place of the written one, within the reported range.
-      const range = (lines[h.unitLine] ?? '').slice(h.unitStart, h.unitEnd);
+      const range = (h.unitLine < lines.length ? lines.line(h.unitLine) : '').slice(h.unitStart, h.unitEnd);
       const at = suggested === undefined ? -1 : range.lastIndexOf(unit);
       const replacement = at < 0 ? undefined : range.slice(0, at) + suggested + range.slice(at + unit.length);
       report(message, h.unitLine, h.unitStart, h.unitEnd, replacement);
@@ -341,11 +362,11 @@ export function parseTable(lines: readonly string[], columnsMap: Readonly<Record
     const needs = (): { words: string; examples: [string, string] } => roleNeeds(role, h.symbol);
     const inner = LOG_OF[role];
     if (unit === '' && (dimension === 'dimensionless' || (role === 'time' && clockSeconds(firstCells[i]?.text ?? '') !== null))) {
-      convert.push((v) => v);
+      convert.push(IDENTITY);
       return;
     }
     if (role === 'time' && CLOCK_UNIT.test(unit)) {
-      convert.push((v) => v);
+      convert.push(IDENTITY);
       return;
     }
     if (unit === '') {
@@ -369,7 +390,7 @@ export function parseTable(lines: readonly string[], columnsMap: Readonly<Record
         return;
       }
       const shift = Math.log10(toCanonical(1, resolved, inner));
-      convert.push(shift === 0 ? (v) => v : (v) => v + shift);
+      convert.push(conversion(1, shift));
       return;
     }
     let dim = dimension;
@@ -388,7 +409,7 @@ export function parseTable(lines: readonly string[], columnsMap: Readonly<Record
     const factor = toCanonical(1, resolved, dim) - toCanonical(0, resolved, dim);
     const offset = toCanonical(0, resolved, dim);
     if (role === 'time' && factor === 1 && offset === 0) clock[i] = true;
-    convert.push(factor === 1 && offset === 0 ? (v) => v : (v) => v * factor + offset);
+    convert.push(conversion(factor, offset));
   });
 
   // Two columns of one role: the first that kept its role (its unit checked) keeps it; a column
@@ -416,7 +437,8 @@ export function parseTable(lines: readonly string[], columnsMap: Readonly<Record
     for (let j = 0; j < ncol; j++) {
       if (roles[j] === null) continue;
       const f = convert[j];
-      const v = f ? f(plain[j]) : plain[j];
+      // The coefficients, not a call: a double passed to a call becomes a new heap number.
+      const v = f && !f.identity ? plain[j] * f.factor + f.offset : plain[j];
       if (!Number.isFinite(v)) return false;
       plain[j] = v;
     }
@@ -426,14 +448,18 @@ export function parseTable(lines: readonly string[], columnsMap: Readonly<Record
   let coldRows = 0;
   for (let i = headerIndex + 1; i < lines.length; i++) {
     if (i === unitsIndex) continue;
-    const text = lines[i];
-    const first = text.charCodeAt(0);
+    // A plain row is read where it lies in its text; only other lines become strings.
+    const source = lines.text(i);
+    const from = lines.start(i);
+    const to = lines.end(i);
+    const first = from < to ? source.charCodeAt(from) : NaN;
     const startsLikeNumber = (first >= 48 && first <= 57) || first === 45 || first === 43 || first === 46 || first === SPACE || first === TAB;
-    if (startsLikeNumber && readPlainRow(text, delimiter, ncol, plain) && convertPlain()) {
+    if (startsLikeNumber && readPlainRow(source, from, to, delimiter, ncol, plain) && convertPlain()) {
       rows.push(plain);
       rowLines[rows.length - 1] = i;
       continue;
     }
+    const text = lines.line(i);
     if (isSkippedLine(text)) continue;
     const cells = splitCells(text, delimiter);
     if (cells.length === ncol + 1 && cells[ncol].text === '') cells.pop();

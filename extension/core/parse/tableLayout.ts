@@ -24,6 +24,7 @@
 import { roleOfSymbol } from './columnRoles.js';
 import { CLOCK_UNIT, detectDelimiter, headerCells, isUnitless, readHeader, splitCells, startsWithValue, stripBrackets, withoutTrailingEmpty, type Cell, type Delimiter } from './tableCells.js';
 import { lookupUnit } from './units.js';
+import type { TableLines } from './tableLines.js';
 
 export interface PreambleEntry {
   readonly key: string;
@@ -89,13 +90,13 @@ function allValues(text: string): boolean {
 }
 
 /** Is the next line that holds something a row like this one (a value first, the same delimiter and number of cells), or is there none? */
-function nextIsLikeRow(lines: readonly string[], i: number): boolean {
+function nextIsLikeRow(lines: TableLines, i: number): boolean {
   let j = i + 1;
-  while (j < lines.length && isSkippedLine(lines[j])) j++;
+  while (j < lines.length && isSkippedLine(lines.line(j))) j++;
   if (j === lines.length) return true;
-  const delimiter = detectDelimiter(lines[i]);
-  if (!startsWithValue(lines[j].trim()) || detectDelimiter(lines[j]) !== delimiter) return false;
-  return withoutTrailingEmpty(splitCells(lines[j], delimiter), delimiter).length === withoutTrailingEmpty(splitCells(lines[i], delimiter), delimiter).length;
+  const delimiter = detectDelimiter(lines.line(i));
+  if (!startsWithValue(lines.line(j).trim()) || detectDelimiter(lines.line(j)) !== delimiter) return false;
+  return withoutTrailingEmpty(splitCells(lines.line(j), delimiter), delimiter).length === withoutTrailingEmpty(splitCells(lines.line(i), delimiter), delimiter).length;
 }
 
 export interface LayoutOptions {
@@ -116,16 +117,16 @@ function rolesIn(text: string, names: ReadonlySet<string> | undefined): number {
 }
 
 /** Is the line under the header a units line for it (a units line may stop before the last columns: a comment column without unit)? */
-function isUnitsLineOf(lines: readonly string[], header: number, next: number): boolean {
-  const delimiter = detectDelimiter(lines[header]);
-  const cells = headerCells(lines[header], delimiter);
-  const units = withoutTrailingEmpty(splitCells(lines[next], delimiter), delimiter);
+function isUnitsLineOf(lines: TableLines, header: number, next: number): boolean {
+  const delimiter = detectDelimiter(lines.line(header));
+  const cells = headerCells(lines.line(header), delimiter);
+  const units = withoutTrailingEmpty(splitCells(lines.line(next), delimiter), delimiter);
   return cells.length > 0 && units.length <= cells.length && unitsLike(units);
 }
 
-function nextHolding(lines: readonly string[], i: number): number {
+function nextHolding(lines: TableLines, i: number): number {
   let j = i + 1;
-  while (j < lines.length && isSkippedLine(lines[j])) j++;
+  while (j < lines.length && isSkippedLine(lines.line(j))) j++;
   return j;
 }
 
@@ -137,7 +138,7 @@ function nextHolding(lines: readonly string[], i: number): number {
  * `3OO, 400`, names none and stays a row, so its bad cell is reported). When no line names a
  * recognised column, the header is the last text line (or the one above a units line).
  */
-export function locateTable(lines: readonly string[], options: LayoutOptions = {}): TableLayout {
+export function locateTable(lines: TableLines, options: LayoutOptions = {}): TableLayout {
   let firstText = -1;
   let last = -1;
   let beforeLast = -1;
@@ -145,12 +146,12 @@ export function locateTable(lines: readonly string[], options: LayoutOptions = {
   let best = -1;
   let bestRoles = 0;
   for (let i = 0; i < lines.length; i++) {
-    if (isSkippedLine(lines[i])) continue;
+    if (isSkippedLine(lines.line(i))) continue;
     if (options.inline) {
       firstText = i;
       break;
     }
-    if (startsWithValue(lines[i].trim()) && !unitsLikeLine(lines[i]) && (allValues(lines[i]) || nextIsLikeRow(lines, i))) {
+    if (startsWithValue(lines.line(i).trim()) && !unitsLikeLine(lines.line(i)) && (allValues(lines.line(i)) || nextIsLikeRow(lines, i))) {
       firstData = i;
       break;
     }
@@ -159,7 +160,7 @@ export function locateTable(lines: readonly string[], options: LayoutOptions = {
     last = i;
     // A units line is no header (`h, °C`: hours and degrees, though `h` is also a symbol).
     if (beforeLast >= 0 && beforeLast === best && isUnitsLineOf(lines, beforeLast, i)) continue;
-    const n = rolesIn(lines[i], options.names);
+    const n = rolesIn(lines.line(i), options.names);
     if (n > 0 && n >= bestRoles) {
       best = i;
       bestRoles = n;
@@ -184,15 +185,15 @@ export function locateTable(lines: readonly string[], options: LayoutOptions = {
       unitsIndex = last;
     }
   }
-  const delimiter = headerIndex >= 0 ? detectDelimiter(lines[headerIndex]) : 'comma';
+  const delimiter = headerIndex >= 0 ? detectDelimiter(lines.line(headerIndex)) : 'comma';
   return { headerIndex, unitsIndex, delimiter, preamble: headerIndex > 0 ? readPreamble(lines, headerIndex) : [] };
 }
 
 /** `Key: value`, `Key<TAB>value` (`;` and `,` too) lines above the header, `#` comments included. */
-function readPreamble(lines: readonly string[], end: number): PreambleEntry[] {
+function readPreamble(lines: TableLines, end: number): PreambleEntry[] {
   const out: PreambleEntry[] = [];
   for (let i = 0; i < end && out.length < MAX_PREAMBLE; i++) {
-    let t = lines[i].trim();
+    let t = lines.line(i).trim();
     if (t.startsWith('#')) t = t.replace(/^#+/, '').trim();
     if (t.length === 0) continue;
     let sep = t.indexOf(':');
