@@ -33,12 +33,27 @@ export function linesOfText(text: string): TableLines {
 }
 
 class TextLines implements TableLines {
-  /** starts[i] and ends[i] of each line; length + 1 starts for the simple bounds check. */
+  /** Where each line starts and ends (before its break). */
   private readonly starts: Int32Array;
   private readonly ends: Int32Array;
   readonly length: number;
 
   constructor(private readonly source: string) {
+    if (source.indexOf('\r') < 0) {
+      // Line feeds only (almost every table): counted, then placed, by the engine's own search.
+      let count = 1;
+      for (let i = source.indexOf('\n'); i >= 0; i = source.indexOf('\n', i + 1)) count++;
+      this.length = count;
+      this.starts = new Int32Array(count);
+      this.ends = new Int32Array(count);
+      let k = 0;
+      for (let i = source.indexOf('\n'); i >= 0; i = source.indexOf('\n', i + 1)) {
+        this.ends[k] = i;
+        this.starts[++k] = i + 1;
+      }
+      this.ends[k] = source.length;
+      return;
+    }
     let count = 1;
     for (let i = 0; i < source.length; i++) {
       const c = source.charCodeAt(i);
