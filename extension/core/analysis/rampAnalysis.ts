@@ -95,7 +95,12 @@ interface RampChoices {
   readonly figuresOnly?: boolean;
 }
 
-const VARIANTS: readonly RampChoices[] = [{ gapScale: 1.5 }, { gapScale: 0.7 }, { vdTrim: 5 }, { coolTrim: 5 }];
+const VARIANTS: readonly RampChoices[] = [
+  { gapScale: 1.5, figuresOnly: true },
+  { gapScale: 0.7, figuresOnly: true },
+  { vdTrim: 5, figuresOnly: true },
+  { coolTrim: 5, figuresOnly: true },
+];
 
 /**
  * Work the nominal analysis shares with its window variants (same block, same data): the rows
@@ -128,7 +133,7 @@ export function analyzeRamp(block: ParsedBlock, ctx: AnalysisContext): Analysis 
   const spread = new Map<string, number>();
   for (const choice of VARIANTS) {
     ctx.checkCancelled();
-    const r = rampDetails(block, ctx, { ...choice, figuresOnly: true }, memo).analysis.results;
+    const r = rampDetails(block, ctx, choice, memo).analysis.results;
     for (const n of names) {
       const v = r[n];
       if (v === undefined) continue;
@@ -195,7 +200,8 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext, choices: R
   const what = hcol.role === 'volume' ? 'specific volume' : 'thickness';
   // (A variant runs only after the nominal analysis found every thickness positive.)
   const hv = hcol.values;
-  for (let i = 0; !memo?.prepared && i < hv.length; i++) {
+  const checked = memo?.prepared !== undefined;
+  for (let i = 0; !checked && i < hv.length; i++) {
     if (!(hv[i] > 0)) {
       note(messages.rampThicknessNotPositive(hv[i], what), block.rowSpan(i));
       return empty;
@@ -248,8 +254,9 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext, choices: R
     ['liquid', liquidW],
     ['deposited', depositedW],
   ] as const) {
-    const n = w ? countWhere(curve.T, (T) => T >= w[0] && T <= w[1]) : Infinity;
-    if (w && n < 3) {
+    if (!w) continue;
+    const n = countWhere(curve.T, (T) => T >= w[0] && T <= w[1]);
+    if (n < 3) {
       if (!choices.figuresOnly) note(messages.rampEmptyWindow(name, n, w[0], w[1]), block.spanOf(`/windows/${name}`));
       return { analysis: { results, diagnostics }, lines };
     }
