@@ -45,3 +45,11 @@ describe('flat metadata read without the YAML parser', () => {
     assert.ok(readFlatMetadata(text));
   });
 });
+
+describe('a key the YAML parser refuses', () => {
+  it('is left to the parser, which reports it (an implicit key of more than 1024 characters; YAML 1.2.2 §7.4.2)', () => {
+    const text = `name: glass\n${'k'.repeat(1025)}: v`;
+    assert.equal(readFlatMetadata(text), null);
+    assert.ok(parseYamlMetadata(text).problems.length > 0);
+  });
+});

@@ -282,11 +282,14 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext, choices: R
       c = { T: T.subarray(0, m), h: h.subarray(0, m) };
     }
     const variant = `${choices.coolTrim ?? 0}|${choices.gapScale ?? 1}`;
+    // Looked up by every variant, also one that reuses a construction: the engine records each
+    // lookup, and they are part of the inputs a results block keeps.
+    const fragility = fragilityOf(block, ctx);
     let fig = memo?.cooling.get(variant);
     if (!fig) {
       let stage = memo?.stages.get(choices.coolTrim ?? 0);
       if (memo && !stage) memo.stages.set(choices.coolTrim ?? 0, (stage = {}));
-      fig = coolingTg({ T: c.T, h: c.h, glassWindow: glassW, liquidWindow: liquidW, fragility: fragilityOf(block, ctx), gapScale: choices.gapScale }, stage);
+      fig = coolingTg({ T: c.T, h: c.h, glassWindow: glassW, liquidWindow: liquidW, fragility, gapScale: choices.gapScale }, stage);
       memo?.cooling.set(variant, fig);
     }
     const place = (where: 'segment' | 'low' | 'high' | 'windows'): Span =>

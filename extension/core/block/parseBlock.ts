@@ -19,8 +19,8 @@ import type { FencedBlock } from '../scan/fenceScanner.js';
 import { quantityFields, type QuantityField } from '../schema/quantityFields.js';
 import { SCHEMAS } from '../schema/schemas.js';
 import { recommendedKeys, validateMetadata } from '../schema/validator.js';
-import { BodyMap, type BodyLineList } from '../text/bodyMap.js';
-import { hashParts, hashText } from '../text/hash.js';
+import { BodyMap } from '../text/bodyMap.js';
+import { Hasher, hashText } from '../text/hash.js';
 import { resolveNotebookPath } from '../text/notebookPath.js';
 import { toOneBasedPoint, type Span } from '../text/positions.js';
 
@@ -199,17 +199,16 @@ export interface ParseInput {
 /**
  * The cache key of a block before its data file is read: its file, its text, and where each body
  * line starts relative to the fence, so that the same text indented differently (or inside a list
- * or quote) never shares a parse.
+ * or quote) never shares a parse. It is the hash of `file NUL text NUL layout`, the layout being the
+ * info string's offset and `start.pad` of each body line, joined by commas (results blocks keep it,
+ * through the inputs hash, so it must not change); fed to the hash piece by piece.
  */
 export function blockTextKey(file: string, source: string, fence: FencedBlock): string {
   const d = fence.span.start;
   const lines = fence.bodyLines;
-  let layout = `${fence.infoSpan.start - d}`;
-  if (contiguousLines(lines, source, d)) {
-    // Each line starts after the line break of the one before: the text, the first line's start and the count fix them all.
-    if (lines.length > 0) layout += `;${lines.start(0) - d}+${lines.length}`;
-  } else for (let i = 0; i < lines.length; i++) layout += `,${lines.start(i) - d}.${lines.pad(i)}`;
-  return hashParts([file, source, layout]);
+  const h = new Hasher().text(file).char(0).text(source).char(0).integer(fence.infoSpan.start - d);
+  for (let i = 0; i < lines.length; i++) h.char(44).integer(lines.start(i) - d).char(46).integer(lines.pad(i));
+  return h.digest();
 }
 
 /** Is body[start, end) the `---` line (three hyphens, then only spaces and tabs)? */
@@ -218,15 +217,6 @@ function isSeparator(body: string, start: number, end: number): boolean {
   for (let i = start + 3; i < end; i++) {
     const c = body.charCodeAt(i);
     if (c !== 32 && c !== 9) return false;
-  }
-  return true;
-}
-
-/** Do the body lines follow each other directly, each after a line feed, with no pad? */
-function contiguousLines(lines: BodyLineList, source: string, d: number): boolean {
-  for (let i = 0; i < lines.length; i++) {
-    if (lines.pad(i) !== 0) return false;
-    if (i > 0 && (lines.start(i) !== lines.end(i - 1) + 1 || source.charCodeAt(lines.end(i - 1) - d) !== 10)) return false;
   }
   return true;
 }

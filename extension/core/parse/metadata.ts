@@ -77,7 +77,7 @@ const NOT_TEXT_KEY = /^(?:true|True|TRUE|false|False|FALSE|null|Null|NULL|__prot
  * a plain key at the margin, a colon, spaces and a value that the YAML core schema can only read as
  * text (it starts with a letter or a digit, holds no comment, colon-space or tab, and is no
  * number, boolean or null: a value without a space that starts with a digit, a sign or a point is
- * left to the parser); no key twice. Null for anything else: the parser reads it. What it returns
+ * left to the parser); no key twice, none near YAML's limit of 1024 characters. Null for anything else: the parser reads it. What it returns
  * is what the parser gives for the same text (a property test holds them together).
  */
 export function readFlatMetadata(text: string): Metadata | null {
@@ -90,7 +90,8 @@ export function readFlatMetadata(text: string): Metadata | null {
     if (end > at) {
       const line = text.slice(at, end);
       const m = PLAIN_KEY.exec(line);
-      if (!m || NOT_TEXT_KEY.test(m[1]) || Object.prototype.hasOwnProperty.call(data, m[1])) return null;
+      // (YAML refuses an implicit key of more than 1024 characters: the parser says so.)
+      if (!m || m[0].length > 1000 || NOT_TEXT_KEY.test(m[1]) || Object.prototype.hasOwnProperty.call(data, m[1])) return null;
       const start = m[0].length;
       let stop = line.length;
       while (stop > start && line.charCodeAt(stop - 1) === 32) stop--;

@@ -1,28 +1,72 @@
 /**
  * A fast 53-bit string hash (cyrb53, public domain) used for cache keys. Not cryptographic:
  * a collision would only make the cache serve a stale result for an identical-looking key.
+ *
+ * Keys end up in notebooks (the `inputs:` of a results block), so the hash of a given text never
+ * changes: `Hasher` feeds the same characters in pieces, without making the joined string.
  */
-export function hashText(text: string, seed = 0): string {
-  return hashParts([text], seed);
-}
+export class Hasher {
+  private h1: number;
+  private h2: number;
 
-/** Hash of several parts, order-sensitive: the hash of the parts joined by U+0000, without joining them. */
-export function hashParts(parts: readonly string[], seed = 0): string {
-  let h1 = 0xdeadbeef ^ seed;
-  let h2 = 0x41c6ce57 ^ seed;
-  for (let p = 0; p < parts.length; p++) {
-    if (p > 0) {
-      h1 = Math.imul(h1, 2654435761);
-      h2 = Math.imul(h2, 1597334677);
-    }
-    const text = parts[p];
+  constructor(seed = 0) {
+    this.h1 = 0xdeadbeef ^ seed;
+    this.h2 = 0x41c6ce57 ^ seed;
+  }
+
+  /** Adds one UTF-16 code unit. */
+  char(ch: number): this {
+    this.h1 = Math.imul(this.h1 ^ ch, 2654435761);
+    this.h2 = Math.imul(this.h2 ^ ch, 1597334677);
+    return this;
+  }
+
+  text(text: string): this {
+    let h1 = this.h1;
+    let h2 = this.h2;
     for (let i = 0; i < text.length; i++) {
       const ch = text.charCodeAt(i);
       h1 = Math.imul(h1 ^ ch, 2654435761);
       h2 = Math.imul(h2 ^ ch, 1597334677);
     }
+    this.h1 = h1;
+    this.h2 = h2;
+    return this;
   }
-  h1 = Math.imul(h1 ^ (h1 >>> 16), 2246822507) ^ Math.imul(h2 ^ (h2 >>> 13), 3266489909);
-  h2 = Math.imul(h2 ^ (h2 >>> 16), 2246822507) ^ Math.imul(h1 ^ (h1 >>> 13), 3266489909);
-  return (4294967296 * (2097151 & h2) + (h1 >>> 0)).toString(36);
+
+  /** Adds an integer as the characters of its decimal numeral (`String(n)`), without the string. */
+  integer(n: number): this {
+    if (!Number.isSafeInteger(n)) return this.text(String(n));
+    if (n < 0) {
+      this.char(45);
+      n = -n;
+    }
+    let scale = 1;
+    while (scale * 10 <= n) scale *= 10;
+    for (; scale >= 1; scale /= 10) {
+      const digit = Math.floor(n / scale);
+      this.char(48 + digit);
+      n -= digit * scale;
+    }
+    return this;
+  }
+
+  digest(): string {
+    let h1 = this.h1;
+    let h2 = this.h2;
+    h1 = Math.imul(h1 ^ (h1 >>> 16), 2246822507) ^ Math.imul(h2 ^ (h2 >>> 13), 3266489909);
+    h2 = Math.imul(h2 ^ (h2 >>> 16), 2246822507) ^ Math.imul(h1 ^ (h1 >>> 13), 3266489909);
+    return (4294967296 * (2097151 & h2) + (h1 >>> 0)).toString(36);
+  }
+}
+
+export function hashText(text: string, seed = 0): string {
+  return new Hasher(seed).text(text).digest();
+}
+
+/** Hash of several parts, order-sensitive: the hash of the parts joined by U+0000, without joining them. */
+export function hashParts(parts: readonly string[], seed = 0): string {
+  const h = new Hasher(seed);
+  parts.forEach((part, i) => (i > 0 ? h.char(0) : h).text(part));
+  return h.digest();
 }
