@@ -74,6 +74,24 @@ describe('a substrate temperature written as a multiple of Tg', () => {
     assert.equal(d.results.tsub_over_tg.uncertainty, 0.01);
   });
 
+  it("passes Tg's uncertainty on to the density gain, through the gain's slope in temperature", () => {
+    // Δρ/ρ = 100·(h_LC/h_VD − 1) at T_ref (Dalal & Ediger, J. Phys. Chem. Lett. 3, 1229, 2012);
+    // u(T_ref) enters through d(gain)/dT = 100·(s_LC·h_VD − h_LC·s_VD)/h_VD² (GUM, JCGM 100:2008,
+    // eq. 10), with u(T_ref) = 0.92 × 2 K for a substrate at 0.92 Tg and Tg = 315 ± 2 K.
+    const material = '```material M-1\nname: synthetic glass\ntg: 315 ± 2 K\ntg_source: invented for the test\n```\n';
+    const { files } = analyse({ 'm.md': material, 'd.md': film + '\n' + ramp });
+    const gain = blockOf(files, 'R-1').results.density_gain;
+    const T = 0.92 * 315;
+    const slope = (100 * (0.02 * vd(T) - lc(T) * 0.02)) / vd(T) ** 2;
+    const term = gain.budget?.find((t) => t.source === 'reference temperature');
+    assert.ok(term, JSON.stringify(gain.budget));
+    assert.ok(Math.abs(term.value - Math.abs(slope) * 0.92 * 2) < 1e-6 * Math.abs(slope), `${term.value} against ${Math.abs(slope) * 1.84}`);
+    assert.ok(gain.uncertainty! >= term.value);
+    // Without an uncertainty on Tg there is no such term.
+    const plain = blockOf(analyse({ 'm.md': MATERIAL_BLOCK(315), 'd.md': film + '\n' + ramp }).files, 'R-1').results.density_gain;
+    assert.equal(plain.budget?.find((t) => t.source === 'reference temperature'), undefined);
+  });
+
   it('is an error when the material has no tg, and nothing is computed from it', () => {
     const material = '```material M-1\nname: synthetic glass\n```\n';
     const { files } = analyse({ 'm.md': material, 'd.md': film + '\n' + ramp });

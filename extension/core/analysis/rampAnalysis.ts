@@ -664,9 +664,23 @@ function firstHeating(
   const u = 100 * Math.abs(ratio) * Math.sqrt(predictVariance(lc, tref) / (hLc * hLc) + predictVariance(vd, tref) / (hVd * hVd));
   // d(gain)/dT at tref: a thermometer offset moves the lines against the reference temperature.
   const dGain = (100 * (lc.slope * hVd - hLc * vd.slope)) / (hVd * hVd);
+  // The reference temperature's own uncertainty (written with it, or that of Tg when the film's
+  // substrate temperature is a multiple of Tg) moves the point where the lines are compared.
+  const uRef = (explicit ? explicit.uncertainty : tsub?.uncertainty) ?? 0;
+  const refTerm: UncertaintyTerm[] =
+    uRef > 0
+      ? [
+          {
+            source: 'reference temperature',
+            value: Math.abs(dGain) * uRef,
+            note: `u(T_ref) = ${Number(uRef.toPrecision(2))} K (${explicit ? 'reference_temperature as written' : substrate?.source === 'tg' ? "from the material's Tg" : 'substrate temperature as written'}) × d(gain)/dT`,
+          },
+        ]
+      : [];
   results.density_gain = budgeted(100 * (ratio - 1), '%', `100·(h_LC/h_VD − 1) at ${Number(tref.toPrecision(6))} K from the fitted lines (${vdText}; liquid-cooled line ${Number(lc.xmin.toFixed(1))}–${Number(lc.xmax.toFixed(1))} K)`, [
     { source: 'statistical', value: u, note: 'variances of the two fitted lines at the reference temperature' },
-    { source: 'calibration', value: dGain * calTerm.value, note: `${calTerm.note} × d(gain)/dT` },
+    { source: 'calibration', value: Math.abs(dGain) * calTerm.value, note: `${calTerm.note} × d(gain)/dT` },
+    ...refTerm,
   ]);
   results.reference_temperature = budgeted(tref, 'K', explicit ? 'reference_temperature as written' : `substrate temperature of ${String(block.metadata.data.film)}`, []);
 }
