@@ -110,6 +110,18 @@ describe('Notebook as an editor drives it', () => {
     assert.ok(report.files[0].blocks[1].diagnostics.every((d) => d.code !== 'quantity.bare-number'));
   });
 
+  it('reads again, under a raised limit, a pushed data file it refused as too large', () => {
+    const csv = 'T/K, h/nm\n' + Array.from({ length: 40 }, (_, i) => `${280 + i}, ${100 + 0.02 * i}`).join('\n') + '\n';
+    const ramp = '```ramp R-1\nfilm: D-1\nrate: 1 K/min\ndata: r.csv\n```\n';
+    const nb = new Notebook(new InMemoryHost(new Map([['r.csv', csv]])), { maxDataFileBytes: 100 });
+    nb.setFile('m.md', MATERIAL_BLOCK() + DEPOSITION_BLOCK('D-1', 270) + ramp);
+    nb.setDataFile('r.csv', csv);
+    const codes = (): string[] => nb.analyze().files[0].blocks.flatMap((b) => b.diagnostics.map((d) => d.code));
+    assert.ok(codes().includes('data.too-large'));
+    nb.setOptions({ maxDataFileBytes: 1_000_000 });
+    assert.ok(!codes().includes('data.too-large'), codes().join(' '));
+  });
+
   it('gives two identical blocks indented differently their own parse', () => {
     const block = '```deposition D-1\nmaterial: M-1\nsubstrate_temperature: 280 K\nrate: 0.2 nm/s\nduration: 10 s\nbase_pressure: 1e-6 Pa\nsubstrate: Si\n```\n';
     const indented = block.split('\n').map((l) => (l ? '  ' + l : l)).join('\n');

@@ -37,7 +37,9 @@ export class DataFiles implements DataTableSource {
   setLimit(maxBytes: number): boolean {
     if (maxBytes === this.maxBytes) return false;
     this.maxBytes = maxBytes;
-    for (const [path, e] of this.entries) if (!e.pushed) this.entries.delete(path);
+    // Pulled files are asked for again; so is a pushed file refused as too large, whose text was
+    // not kept (the host reads it again under the new limit).
+    for (const [path, e] of this.entries) if (!e.pushed || (!e.read.ok && e.read.reason === 'too-large')) this.entries.delete(path);
     for (const [path, e] of this.entries) this.entries.set(path, entry(e.read.ok ? e.read.text : null, e.read, true, maxBytes));
     return true;
   }
