@@ -184,6 +184,22 @@ export class Workspace {
         }
         touched.push({ folder, rel });
       } else {
+        if (deleted) {
+          // A folder deleted on disk arrives as one event for the folder: what lay in it is gone too.
+          const under = `${rel}/`;
+          for (const file of folder.engine.paths()) {
+            if (!file.startsWith(under) || this.open.has(this.uriOf(folder, file))) continue;
+            folder.engine.deleteFile(file);
+            this.disk.delete(this.uriOf(folder, file));
+            touched.push({ folder, rel: file });
+          }
+          for (const dataPath of folder.engine.dataPathsRead()) {
+            if (!dataPath.startsWith(under)) continue;
+            const readers = folder.engine.readersOf(dataPath);
+            folder.engine.deleteDataFile(dataPath);
+            for (const r of readers) touched.push({ folder, rel: r });
+          }
+        }
         const readers = folder.engine.readersOf(rel);
         if (readers.length === 0) continue;
         if (deleted) folder.engine.deleteDataFile(rel);

@@ -316,4 +316,22 @@ describe('language server over stdio', function () {
     client.connection.sendNotification('workspace/didChangeWatchedFiles', { changes: [{ uri: uriOf(path.join(root, 'r.csv')), type: 1 }] });
     await client.waitForDiagnostics(uri, (d) => d.some((x) => x.code === 'table.bad-cell') && !d.some((x) => x.code === 'data.missing-file'));
   });
+
+  it('forgets what lay in a folder deleted on disk, told by one event for the folder', async () => {
+    root = tempNotebook({
+      'm.md': MATERIAL + DEPOSITION,
+      'days/r.md': '```ramp R-1\nfilm: D-1\nrate: 10 K/min\ndata: r.csv\n```\n',
+      'days/o.csv': 'T/K, h/nm\n300, 100\n301, x\n',
+      'o.md': '```ramp R-2\nfilm: D-1\nrate: 10 K/min\ndata: days/o.csv\n```\n',
+    });
+    client = await startServer(root);
+    const inside = uriOf(path.join(root, 'days', 'r.md'));
+    const outside = uriOf(path.join(root, 'o.md'));
+    await client.waitForDiagnostics(inside, (d) => d.some((x) => x.code === 'data.missing-file'));
+    await client.waitForDiagnostics(outside, (d) => d.some((x) => x.code === 'table.bad-cell'));
+    fs.rmSync(path.join(root, 'days'), { recursive: true });
+    client.connection.sendNotification('workspace/didChangeWatchedFiles', { changes: [{ uri: uriOf(path.join(root, 'days')), type: 3 }] });
+    await client.waitForDiagnostics(inside, (d) => d.length === 0);
+    await client.waitForDiagnostics(outside, (d) => d.some((x) => x.code === 'data.missing-file'));
+  });
 });

@@ -57,6 +57,11 @@ export class DataFiles implements DataTableSource {
     return this.readersOf(path);
   }
 
+  /** Paths that some notebook file reads. */
+  readPaths(): string[] {
+    return [...this.readers.keys()];
+  }
+
   readersOf(path: string): string[] {
     return [...(this.readers.get(path)?.keys() ?? [])];
   }

@@ -263,6 +263,11 @@ export class Notebook {
     return { blocks, analyses: this.analysisCache.size, dataFiles: this.data.paths().length };
   }
 
+  /** Data files that some notebook file reads (whether or not they exist). */
+  dataPathsRead(): string[] {
+    return this.data.readPaths().sort();
+  }
+
   /** Notebook files that read a data file. */
   readersOf(dataPath: string): string[] {
     return this.data.readersOf(dataPath).sort();
