@@ -9,7 +9,7 @@
  *   inputs), refresh a record whose inputs changed, and refresh every record of a file.
  */
 import { CodeActionKind, type CodeAction, type CodeActionParams, type Diagnostic as LspDiagnostic, type TextEdit } from 'vscode-languageserver';
-import { blockKeys, requiredAlternatives, resultText, type BlockLocation, type BlockReport, type FileReport } from '../core/index.js';
+import { blockKeys, requiredAlternatives, resultText, visibleSpan, type BlockLocation, type BlockReport, type FileReport } from '../core/index.js';
 import type { DocumentText } from './documentText.js';
 import type { Folder, Workspace } from './workspace.js';
 
@@ -48,9 +48,15 @@ export function codeActions(ws: Workspace, params: CodeActionParams): CodeAction
   const edit = (edits: TextEdit[]) => ({ changes: { [uri]: edits } });
 
   if (wants(CodeActionKind.QuickFix)) {
+    // A fix comes from the analysis of the text as it is now, not from the published diagnostic:
+    // text typed since then (above it, or in it) would leave a published range pointing elsewhere.
+    // The editor keeps the range of a diagnostic in step with the text; a fix is offered when a
+    // current diagnostic of the same code has that range.
+    const current = [...file.diagnostics, ...file.blocks.flatMap((b) => b.diagnostics)].filter((x) => x.fix);
     for (const d of params.context.diagnostics) {
-      const fix = (d.data as { fix?: { title: string; newText: string; range: TextEdit['range'] } } | undefined)?.fix;
-      if (d.source === 'vitrine' && fix) out.push({ title: fix.title, kind: CodeActionKind.QuickFix, diagnostics: [d], isPreferred: true, edit: edit([{ range: fix.range, newText: fix.newText }]) });
+      if (d.source !== 'vitrine') continue;
+      const now = current.find((x) => x.code === d.code && sameRange(text.range(visibleSpan(x.span, text.text.length)), d.range));
+      if (now?.fix) out.push({ title: now.fix.title, kind: CodeActionKind.QuickFix, diagnostics: [d], isPreferred: true, edit: edit([{ range: text.range(now.fix.span), newText: now.fix.newText }]) });
     }
     const missing = params.context.diagnostics.filter((d) => d.source === 'vitrine' && d.code === 'meta.missing-required');
     for (const block of blocksUnder(ctx, missing)) {
@@ -179,4 +185,8 @@ function refreshEdit(ctx: FileContext, record: BlockReport): TextEdit | null {
 /** A YAML scalar: plain where YAML reads it back as the same text, quoted otherwise. */
 function yamlText(value: string): string {
   return /^[\w(+\-.−][^#:]*$/.test(value) && !/\s$/.test(value) ? value : JSON.stringify(value);
+}
+
+function sameRange(a: TextEdit['range'], b: TextEdit['range']): boolean {
+  return a.start.line === b.start.line && a.start.character === b.start.character && a.end.line === b.end.line && a.end.character === b.end.character;
 }

@@ -28,6 +28,5 @@ export function toLspDiagnostic(d: Diagnostic, text: DocumentText, relatedUri: (
       message: r.message,
     }));
   }
-  if (d.fix) out.data = { fix: { title: d.fix.title, newText: d.fix.newText, range: text.range(d.fix.span) } };
   return out;
 }

@@ -317,6 +317,26 @@ describe('language server over stdio', function () {
     await client.waitForDiagnostics(uri, (d) => d.some((x) => x.code === 'table.bad-cell') && !d.some((x) => x.code === 'data.missing-file'));
   });
 
+  it('takes a quick fix from the text as it is when the fix is asked for, not as it was when published', async () => {
+    const text = MATERIAL + '\n' + DEPOSITION.replace('substrate_temperature: 255 K', 'substrate_temperature: 255');
+    root = tempNotebook({ 'd.md': text });
+    client = await startServer(root);
+    const uri = uriOf(path.join(root, 'd.md'));
+    client.open(uri, text);
+    const bare = (await client.waitForDiagnostics(uri, (d) => d.some((x) => x.code === 'quantity.bare-number'))).find((d) => d.code === 'quantity.bare-number')!;
+    // A line typed above the block: the editor moves the diagnostic down with the text.
+    const edited = 'A note typed above.\n' + text;
+    client.change(uri, edited, 2);
+    const moved = { ...bare, range: { start: { ...bare.range.start, line: bare.range.start.line + 1 }, end: { ...bare.range.end, line: bare.range.end.line + 1 } } };
+    const actions: CodeAction[] = await client.connection.sendRequest('textDocument/codeAction', { textDocument: { uri }, range: moved.range, context: { diagnostics: [moved] } });
+    const fix = actions.find((a) => a.title === 'Write the unit: 255 K');
+    assert.ok(fix, actions.map((a) => a.title).join(', '));
+    assert.equal(applyEdits(edited, editsFor(fix.edit, uri)), edited.replace('substrate_temperature: 255\n', 'substrate_temperature: 255 K\n'));
+    // The range as published no longer holds that diagnostic: no edit is offered there.
+    const stale: CodeAction[] = await client.connection.sendRequest('textDocument/codeAction', { textDocument: { uri }, range: bare.range, context: { diagnostics: [bare] } });
+    assert.ok(!stale.some((a) => a.title === 'Write the unit: 255 K'));
+  });
+
   it('forgets what lay in a folder deleted on disk, told by one event for the folder', async () => {
     root = tempNotebook({
       'm.md': MATERIAL + DEPOSITION,
