@@ -24,7 +24,7 @@ async function renderSvg(spec: Record<string, unknown>): Promise<string> {
 
 /**
  * A chart title that says what the block shows: block id, film, material and substrate
- * temperature ("R-02 · film D-02 (amberine-3, Tsub 270 K)"), given the film's deposition block.
+ * temperature ("R-02 · film D-02 · amberine-3 · Tsub 270.0 K (-3.2 °C)"), given the film's deposition block.
  * The titles module carries no chart library, so the server can load it at start.
  */
 export { chartTitle };

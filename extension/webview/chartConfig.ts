@@ -16,10 +16,10 @@
  * config keeps what the chart says; its colours and fonts give way to ours. Marks carry constant
  * token colours (ink, the halo in the sheet colour, role and material colours), so those are
  * mapped as well: a surface colour of either token theme becomes the matching chart colour, and
- * a role or material colour of the other token theme becomes its counterpart in this one.
+ * a role, material or Tsub-ramp colour of the other token theme becomes its counterpart in this one.
  */
 import type { Config } from 'vega';
-import { MATERIAL_COLOURS, ROLE, SURFACE, TYPE, type Theme } from '../core/charts/tokens.js';
+import { MATERIAL_COLOURS, ROLE, SURFACE, TSUB_RAMP, TYPE, type Theme } from '../core/charts/tokens.js';
 import type { ChartTheme } from '../protocol/webview.js';
 
 /** The editor variables the chart theme reads. */
@@ -147,6 +147,13 @@ export function themedSpec(spec: unknown, c: ChartColours, options: ThemedSpecOp
  */
 function colourMap(c: ChartColours): Map<string, string> {
   const map = new Map<string, string>();
+  // The substrate-temperature ramp of the other theme to this theme's stop of the same rank; the
+  // stops the two ramps share keep their colour (a spec compiled for this theme stays as it is).
+  const other: Theme = c.tokens === 'light' ? 'dark' : 'light';
+  const own = new Set(TSUB_RAMP[c.tokens].map((x) => x.toLowerCase()));
+  TSUB_RAMP[other].forEach((colour, i) => {
+    if (!own.has(colour.toLowerCase())) map.set(colour.toLowerCase(), TSUB_RAMP[c.tokens][i]);
+  });
   // Later entries win where tokens share a colour: roles over materials, surfaces (the ink that
   // is also the fit's colour) over roles.
   for (const theme of ['light', 'dark'] as const) MATERIAL_COLOURS[theme].forEach((colour, i) => map.set(colour.toLowerCase(), MATERIAL_COLOURS[c.tokens][i]));

@@ -4,7 +4,7 @@ import * as path from 'node:path';
 import * as vega from 'vega';
 import { expressionInterpreter } from 'vega-interpreter';
 import { figureSpec, toVega } from '../../extension/core/charts/index.js';
-import { ROLE, SURFACE, TYPE } from '../../extension/core/charts/tokens.js';
+import { ROLE, SURFACE, TSUB_RAMP, TYPE } from '../../extension/core/charts/tokens.js';
 import type { FigureData } from '../../extension/core/index.js';
 import { chartColours, parseColour, themedSpec, themeKindOf, vegaConfig, type ThemeVariables } from '../../extension/webview/chartConfig.js';
 import { readMessage } from '../../extension/webview/messages.js';
@@ -166,6 +166,16 @@ describe('webview chart theme', () => {
       const lightOnly = new Set([...Object.values(SURFACE.light), ...Object.values(ROLE).map((r) => r.light)].filter((x) => !Object.values(SURFACE.dark).includes(x) && !Object.values(ROLE).some((r) => r.dark === x)));
       assert.ok(!colours.some((m) => lightOnly.has(m.colour)), JSON.stringify(colours));
       assert.ok(colours.some((m) => m.colour === ROLE['as-deposited'].dark), 'the as-deposited data in its dark colour');
+    });
+
+    it('maps the Tsub ramp of a light spec to the dark ramp, stop for stop, and leaves a dark spec’s ramp alone', () => {
+      const spec = (colours: readonly string[]) => ({ marks: colours.map((c) => ({ type: 'symbol', encode: { update: { fill: { value: c } } } })) });
+      const dark = chartColours(DARK_VARS, 'dark', false);
+      const fills = (s: Record<string, unknown> | null) => (s!.marks as Array<{ encode: { update: { fill: { value: string } } } }>).map((m) => m.encode.update.fill.value);
+      const fromLight = fills(themedSpec(spec(TSUB_RAMP.light), dark));
+      const shared = new Set(TSUB_RAMP.dark);
+      TSUB_RAMP.light.forEach((c, i) => assert.equal(fromLight[i], shared.has(c) ? c : TSUB_RAMP.dark[i], `stop ${i}`));
+      assert.deepEqual(fills(themedSpec(spec(TSUB_RAMP.dark), dark)), [...TSUB_RAMP.dark]);
     });
 
     it('does not change its input, and gives null for something that is not a spec', () => {
