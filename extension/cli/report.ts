@@ -259,7 +259,7 @@ export async function writeReport(runs: ReadonlyArray<{ report: NotebookReport; 
   const materialCount = materialFigures.filter((m) => 'svg' in m).length;
 
   const planned: Planned[] = [{ target: output, bytes: html }];
-  const lines = [`wrote ${output} (${blockCharts} block charts, ${mapCount} maps, ${materialCount} material figures, ${summary.length} films)`];
+  const lines = [`wrote ${output} (${plural(blockCharts, 'block chart')}, ${plural(mapCount, 'map')}, ${plural(materialCount, 'material figure')}, ${plural(summary.length, 'film')})`];
   if (csv !== undefined) {
     planned.push({ target: csv, bytes: summaryCsv(summary) });
     lines.push(`wrote ${csv}`);
@@ -299,4 +299,9 @@ export async function writeReport(runs: ReadonlyArray<{ report: NotebookReport; 
   const folders = [...new Set([path.dirname(output), ...named.slice(1).map((f) => path.dirname(f[1])), ...(png !== undefined ? [png] : []), ...(svgDir !== undefined ? [svgDir] : [])])];
   writeAll(planned, folders);
   return { lines, warnings };
+}
+
+/** `1 map`, `4 maps`. */
+function plural(n: number, noun: string): string {
+  return `${n} ${noun}${n === 1 ? '' : 's'}`;
 }

@@ -92,6 +92,27 @@ describe('a substrate temperature written as a multiple of Tg', () => {
     assert.equal(plain.budget?.find((t) => t.source === 'reference temperature'), undefined);
   });
 
+  it('says why there is no density gain when no substrate temperature reaches the ramp', () => {
+    // Δρ/ρ is compared at the film's substrate temperature (Dalal & Ediger, J. Phys. Chem. Lett. 3,
+    // 1229, 2012): without a film, or a film without one, the ramp says what to write.
+    const noFilm = analyse({ 'm.md': MATERIAL_BLOCK(315), 'd.md': tableBlock('ramp', 'R-1', 'rate: 1 K/min\n', 't/s, T/K, h/nm', cycleRows(), 9) });
+    const r1 = blockOf(noFilm.files, 'R-1');
+    assert.equal(r1.results.density_gain, undefined);
+    const n1 = r1.diagnostics.find((x) => x.code === 'ramp.no-reference-temperature');
+    assert.equal(n1?.severity, 'info');
+    assert.equal(n1?.message, messages.rampNoReferenceTemperature('no-film', '').message);
+    const bare = depositionBlock('D-1', 'rate: 0.2 nm/s\nduration: 500 s\nbase_pressure: 1e-6 Pa\n');
+    const noTsub = analyse({ 'm.md': MATERIAL_BLOCK(315), 'd.md': bare + '\n' + ramp });
+    const n2 = blockOf(noTsub.files, 'R-1').diagnostics.find((x) => x.code === 'ramp.no-reference-temperature');
+    assert.equal(n2?.message, messages.rampNoReferenceTemperature('no-substrate-temperature', 'D-1').message);
+    assert.ok(n2 && n2.line > 1, 'on the film key');
+    // With a reference temperature of its own, the ramp needs no film.
+    const own = analyse({ 'm.md': MATERIAL_BLOCK(315), 'd.md': tableBlock('ramp', 'R-1', 'rate: 1 K/min\nreference_temperature: 290 K\n', 't/s, T/K, h/nm', cycleRows(), 9) });
+    const r3 = blockOf(own.files, 'R-1');
+    assert.ok(r3.results.density_gain);
+    assert.ok(!r3.diagnostics.some((x) => x.code === 'ramp.no-reference-temperature'));
+  });
+
   it('is an error when the material has no tg, and nothing is computed from it', () => {
     const material = '```material M-1\nname: synthetic glass\n```\n';
     const { files } = analyse({ 'm.md': material, 'd.md': film + '\n' + ramp });

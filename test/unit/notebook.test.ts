@@ -1,4 +1,5 @@
 import assert from 'node:assert/strict';
+import { messages } from '../../extension/core/model/messages.js';
 import { InMemoryHost, Notebook, toJsonReport } from '../../extension/core/index.js';
 
 const MATERIAL = '```material M-1\nname: test glass\ntg: 300 K\ntg_source: invented for the test\nvft:\n  log10_tau0: -14\n  B: 1008 K\n  T0: 237 K\n```\n';
@@ -103,7 +104,7 @@ describe('Notebook', () => {
     const d = ramp.diagnostics.find((x) => x.code === 'table.bad-cell');
     assert.ok(d);
     assert.equal(d.line, 14);
-    assert.deepEqual(d.related?.[0], { path: 'data/r.csv', line: 3, column: 6, message: '"x" in column "h/nm" is not a number.' });
+    assert.deepEqual(d.related?.[0], { path: 'data/r.csv', line: 3, column: 6, message: messages.tableBadCell('x', 'h/nm').message });
   });
 
   it('leaves ordinary code fences alone', () => {

@@ -651,7 +651,12 @@ function firstHeating(
   const substrate = film ? substrateTemperatureOf(film, ctx) : null;
   const tsub = substrate && substrate.source !== 'unresolved' ? substrate.quantity : undefined;
   const tref = explicit?.value ?? tsub?.value;
-  if (tref === undefined) return;
+  if (tref === undefined) {
+    // (A substrate temperature written as a multiple of an unknown Tg has its own error on the film.)
+    if (!film) note(messages.rampNoReferenceTemperature('no-film', ''), block.header.kindSpan);
+    else if (!substrate) note(messages.rampNoReferenceTemperature('no-substrate-temperature', film.id ?? 'the film'), block.spanOf('/film'));
+    return;
+  }
   const lo = Math.max(vd.xmin, lc.xmin);
   const hi = Math.min(vd.xmax, lc.xmax);
   if (tref < lo - DENSITY_EXTRAPOLATION_LIMIT || tref > hi + DENSITY_EXTRAPOLATION_LIMIT) {

@@ -92,6 +92,7 @@ export const DIAGNOSTIC_CODES = [
   'ramp.mixed-direction',
   'ramp.no-cooling',
   'ramp.no-lc-reference',
+  'ramp.no-reference-temperature',
   'ramp.no-onset',
   'ramp.no-temperature-change',
   'ramp.no-transition',

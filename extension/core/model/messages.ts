@@ -139,14 +139,14 @@ export const messages = {
   tableColumnsUnknownHeader: (role: string, header: string) =>
     msg('table.unknown-header', 'error', `"columns: ${role}" names "${header}", but the table has no such column.`),
   tableBadCell: (text: string, header: string) =>
-    msg('table.bad-cell', 'error', `"${text}" in column "${header}" is not a number.`),
+    msg('table.bad-cell', 'error', `"${text}" in column "${header}" is not a number; the row is left out until it is.`),
   tableClockCellInUnit: (text: string, header: string, unit: string) =>
     msg(
       'table.bad-cell',
       'error',
       `"${text}" in column "${header}" is a clock time, but the column's unit is ${unit}: write the unit as "t (hh:mm:ss)" (or "t (mm:ss)") for clock times, or write plain numbers in ${unit}.`,
     ),
-  tableEmptyCell: (header: string) => msg('table.empty-cell', 'error', `The cell in column "${header}" is empty.`),
+  tableEmptyCell: (header: string) => msg('table.empty-cell', 'error', `The cell in column "${header}" is empty; the row is left out until it holds a value.`),
   tableNonFinite: (text: string, header: string) =>
     msg('table.non-finite', 'error', `"${text}" in column "${header}" is not a finite number; remove the row or write the value.`),
   tableTemperatureNotPositive: (text: string, header: string, rows: number) =>
@@ -158,7 +158,7 @@ export const messages = {
   tableTooFewRows: (kind: string, rows: number, needed: number, why: string) =>
     msg('table.too-few-rows', 'error', `The ${kind} table has ${rows} row${rows === 1 ? '' : 's'}; at least ${needed} are needed ${why}. Add rows.`),
   tableRagged: (found: number, expected: number) =>
-    msg('table.ragged-row', 'error', `This row has ${found} cells but the header has ${expected}.`),
+    msg('table.ragged-row', 'error', `This row has ${found} cells but the header has ${expected}; the row is left out. Write ${expected} values, separated as in the header.`),
   tableInFile: (path: string, count: number) =>
     msg('table.file-errors', 'error', `${path} has ${count} problem${count === 1 ? '' : 's'} in its table; the first is shown with this one.`),
 
@@ -238,6 +238,14 @@ export const messages = {
   rampTgFar: (tg: number, ref: number, rate: number) =>
     msg('ramp.tg-far-from-reference', 'warning', `Tg = ${fmt(tg)} K at ${fmt(rate, 3)} K/min is more than 10 K from the material's standard Tg (${fmt(ref)} K).`),
   rampFewLinePoints: (line: string, n: number) => msg('ramp.few-points', 'warning', `Only ${n} points define the ${line} line (fewer than 8).`),
+  rampNoReferenceTemperature: (why: 'no-film' | 'no-substrate-temperature', film: string) =>
+    msg(
+      'ramp.no-reference-temperature',
+      'info',
+      why === 'no-film'
+        ? 'No density gain: it is evaluated at the film\'s substrate temperature, and the ramp names no film. Write "film: <deposition id>", or "reference_temperature: <T> K".'
+        : `No density gain: it is evaluated at the substrate temperature of ${film}, which does not give one. Write its substrate_temperature, or "reference_temperature: <T> K" in this ramp.`,
+    ),
   rampNoLcReference: () =>
     msg('ramp.no-lc-reference', 'error', 'No liquid-cooled reference: the ramp needs a cooling segment after the first heating to compute the density gain.'),
   rampSclNotSteeper: () =>
