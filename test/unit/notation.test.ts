@@ -414,3 +414,19 @@ describe('a bound in the hover of a quantity', () => {
     assert.match(md, /an upper bound/);
   });
 });
+
+describe('a placeholder left by the quick fix for missing keys', () => {
+  it('is one error at the "?" with an example, and the keys after it are still read', () => {
+    // `key: ?` is what "Insert the missing required keys" writes; YAML would read "? nm/s" as a
+    // mapping key and stop there (YAML 1.2.2 §8.2.2), so the placeholder is read as an empty value.
+    const text = depositionBlock('D-1', 'rate: ? nm/s\nsubstrate_temperature: 270 K\nduration: ?\nbase_pressure: 1e-6 Pa\n');
+    const d = blockOf(analyse({ 'm.md': MATERIAL_BLOCK(315), 'd.md': text }).files, 'D-1');
+    const codes = d.diagnostics.map((x) => x.code);
+    assert.deepEqual(codes.filter((c) => c !== 'meta.missing-recommended'), ['meta.placeholder', 'meta.placeholder'], JSON.stringify(d.diagnostics));
+    const [rate, duration] = d.diagnostics.filter((x) => x.code === 'meta.placeholder');
+    assert.equal(rate.message, messages.metaPlaceholder('rate', '0.2 nm/s').message);
+    assert.deepEqual([rate.line, rate.column, rate.endColumn], [3, 7, 13]);
+    assert.equal(duration.message, messages.metaPlaceholder('duration', '2000 s').message);
+    assert.ok(Math.abs(d.results.tsub_over_tg.value - 270 / 315) < 1e-12, 'the key after the placeholder is read');
+  });
+});

@@ -93,6 +93,7 @@ export const DIAGNOSTIC_CODES = [
   'ramp.no-cooling',
   'ramp.no-lc-reference',
   'ramp.no-reference-temperature',
+  'meta.placeholder',
   'ramp.no-onset',
   'ramp.no-temperature-change',
   'ramp.no-transition',

@@ -238,6 +238,8 @@ export const messages = {
   rampTgFar: (tg: number, ref: number, rate: number) =>
     msg('ramp.tg-far-from-reference', 'warning', `Tg = ${fmt(tg)} K at ${fmt(rate, 3)} K/min is more than 10 K from the material's standard Tg (${fmt(ref)} K).`),
   rampFewLinePoints: (line: string, n: number) => msg('ramp.few-points', 'warning', `Only ${n} points define the ${line} line (fewer than 8).`),
+  metaPlaceholder: (key: string, example: string | null) =>
+    msg('meta.placeholder', 'error', `"${key}" is still a placeholder: write its value in place of "?"${example ? ` (for example "${example}")` : ''}.`),
   rampNoReferenceTemperature: (why: 'no-film' | 'no-substrate-temperature', film: string) =>
     msg(
       'ramp.no-reference-temperature',
@@ -393,7 +395,7 @@ export const messages = {
 
   // Results blocks
   resultsStale: (id: string) =>
-    msg('results.stale', 'warning', `These recorded figures no longer match the inputs of "${id}": its data or metadata changed since they were written. Refresh them (quick fix).`),
+    msg('results.stale', 'warning', `These recorded figures no longer match the inputs of "${id}": its data or metadata changed since they were written (or the record was written by hand). Refresh them with the quick fix, which writes the figures and their inputs hash.`),
 
   // Host
   fileUnreadable: (detail: string) => msg('file.unreadable', 'error', `The notebook file cannot be read: ${detail}.`),
