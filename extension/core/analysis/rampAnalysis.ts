@@ -629,7 +629,7 @@ function firstHeating(
       if (!on.slopesDiffer) note(messages.rampSlopesEqual('the onset'), rowOf(deviation));
     }
   }
-  const sclText = `supercooled-liquid line ${Number(scl.xmin.toFixed(1))}–${Number(scl.xmax.toFixed(1))} K`;
+  const sclText = `supercooled-liquid line of the cooling ${Number(scl.xmin.toFixed(1))}–${Number(scl.xmax.toFixed(1))} K`;
   const tf = intersect(vd, scl, t95);
   if (tf) {
     results.tfictive = budgeted(tf.x, 'K', `${vdText} ∩ ${sclText}`, [{ source: 'statistical', value: tf.se, note: 'delta method at the intersection' }, calTerm]);
