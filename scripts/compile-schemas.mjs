@@ -2,7 +2,7 @@
 // (extension/core/schema/compiledValidators.ts), so that Vitrine never compiles a schema at run
 // time. `npm run schemas` rewrites it; a unit test fails while it is not the one the schemas give.
 // The options here are the validator's: every error, strict schemas, the schema beside each error.
-import { readFileSync, writeFileSync } from 'node:fs';
+import { readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import Ajv2020Module from 'ajv/dist/2020.js';
 import standaloneModule from 'ajv/dist/standalone/index.js';
@@ -10,7 +10,11 @@ import standaloneModule from 'ajv/dist/standalone/index.js';
 const Ajv2020 = Ajv2020Module.default ?? Ajv2020Module;
 const standaloneCode = standaloneModule.default ?? standaloneModule;
 const REPO = fileURLToPath(new URL('..', import.meta.url));
-export const KINDS = ['material', 'deposition', 'ramp', 'isotherm', 'dsc', 'relaxation', 'results'];
+/** One schema per block kind, named after it: schemas/<kind>.schema.json. */
+export const KINDS = readdirSync(`${REPO}schemas`)
+  .filter((f) => f.endsWith('.schema.json'))
+  .map((f) => f.slice(0, -'.schema.json'.length))
+  .sort();
 export const OUTPUT = 'extension/core/schema/compiledValidators.ts';
 
 /** ajv's count of characters (a surrogate pair is one), written out so the module needs no ajv at run time. */

@@ -11,8 +11,7 @@
 // eslint-disable-next-line no-control-regex -- these are the characters to find
 const UNSAFE = /[\0-\x09\x0b-\x1f\x7f-\x9f\u061c\u200e\u200f\u2028\u2029\u202a-\u202e\u2066-\u2069]/g;
 /** The same characters, to look for one without a copy of the text (most output has none). */
-// eslint-disable-next-line no-control-regex -- these are the characters to find
-const ANY_UNSAFE = /[\0-\x09\x0b-\x1f\x7f-\x9f\u061c\u200e\u200f\u2028\u2029\u202a-\u202e\u2066-\u2069]/;
+const ANY_UNSAFE = new RegExp(UNSAFE.source);
 
 function escapeOne(c: string): string {
   if (c === '\t') return '\\t';

@@ -62,8 +62,8 @@ class PrefixSums {
   readonly sy: Float64Array;
   readonly sxy: Float64Array;
   readonly syy: Float64Array;
-  /** The breakpoint given to `hingeSse` and the SSE it found. */
-  readonly io = new Float64Array(2);
+  /** The breakpoint given to `hingeSse` and what it found (see there). */
+  readonly io = new Float64Array(10);
 
   /** Sums of x and y (n points each), written into `sums`: five arrays of n + 1. */
   constructor(x: Float64Array, y: Float64Array, sums: readonly Float64Array[]) {
@@ -105,13 +105,16 @@ function lineOver(p: PrefixSums, a: number, b: number, out: LineCoefficients): b
 }
 
 /**
- * SSE of the constrained hinge fit with the joint at tb = p.io[0], k = number of points with x ≤ tb
- * (Infinity when singular), written to p.io[1]. (A double passed to or returned from a call that is
- * not inlined becomes a new heap number, and this runs about a thousand times per fit.)
+ * The constrained hinge fit with the joint at tb = p.io[0], k = number of points with x ≤ tb,
+ * written to p.io: [1] its SSE (Infinity when singular), [2..4] c, s_g, s_l, and [5..7] what the
+ * inverse of its normal matrix is made of (1/d, −su/suu, −sv/svv) with [8], [9] suu and svv.
+ * (A double passed to or returned from a call that is not inlined becomes a new heap number,
+ * and this runs about a thousand times per fit.)
  */
 function hingeSse(p: PrefixSums, k: number): void {
+  const io = p.io;
   const n = p.n;
-  const tb = p.io[0];
+  const tb = io[0];
   const sxL = p.sx[k];
   const sxR = p.sx[n] - sxL;
   const nR = n - k;
@@ -119,7 +122,9 @@ function hingeSse(p: PrefixSums, k: number): void {
   const sv = sxR - nR * tb;
   const suu = p.sxx[k] - 2 * tb * sxL + k * tb * tb;
   const svv = p.sxx[n] - p.sxx[k] - 2 * tb * sxR + nR * tb * tb;
-  p.io[1] = Infinity;
+  io[1] = Infinity;
+  // Solve [[n, su, sv], [su, suu, 0], [sv, 0, svv]] β = [sy, suy, svy] by eliminating the
+  // slopes: β1 = (suy − su·c)/suu, β2 = (svy − sv·c)/svv.
   if (!(suu > 0) || !(svv > 0)) return;
   const d = n - (su * su) / suu - (sv * sv) / svv;
   if (!(Math.abs(d) > 0)) return;
@@ -129,41 +134,30 @@ function hingeSse(p: PrefixSums, k: number): void {
   const c = (sy - (su * suy) / suu - (sv * svy) / svv) / d;
   const sg = (suy - su * c) / suu;
   const sl = (svy - sv * c) / svv;
-  p.io[1] = Math.max(0, p.syy[n] - (c * sy + sg * suy + sl * svy));
+  io[1] = Math.max(0, p.syy[n] - (c * sy + sg * suy + sl * svy));
+  io[2] = c;
+  io[3] = sg;
+  io[4] = sl;
+  io[5] = 1 / d;
+  io[6] = -su / suu;
+  io[7] = -sv / svv;
+  io[8] = suu;
+  io[9] = svv;
 }
 
-/** Constrained hinge fit with the joint at tb, k = number of points with x ≤ tb, with the inverse of its normal matrix. */
+/** Constrained hinge fit with the joint at tb, k = number of points with x ≤ tb, with the inverse of its normal matrix (by the Schur complement on c). */
 function hingeAt(p: PrefixSums, tb: number, k: number): { sse: number; c: number; sg: number; sl: number; inv: number[][] } | null {
-  const n = p.n;
-  const sxL = p.sx[k];
-  const sxR = p.sx[n] - sxL;
-  const nR = n - k;
-  const su = sxL - k * tb;
-  const sv = sxR - nR * tb;
-  const suu = p.sxx[k] - 2 * tb * sxL + k * tb * tb;
-  const svv = p.sxx[n] - p.sxx[k] - 2 * tb * sxR + nR * tb * tb;
-  const sy = p.sy[n];
-  const suy = p.sxy[k] - tb * p.sy[k];
-  const svy = p.sxy[n] - p.sxy[k] - tb * (p.sy[n] - p.sy[k]);
-  // Solve [[n, su, sv], [su, suu, 0], [sv, 0, svv]] β = [sy, suy, svy] by eliminating the
-  // slopes: β1 = (suy − su·c)/suu, β2 = (svy − sv·c)/svv.
-  if (!(suu > 0) || !(svv > 0)) return null;
-  const d = n - (su * su) / suu - (sv * sv) / svv;
-  if (!(Math.abs(d) > 0)) return null;
-  const c = (sy - (su * suy) / suu - (sv * svy) / svv) / d;
-  const sg = (suy - su * c) / suu;
-  const sl = (svy - sv * c) / svv;
-  const sse = Math.max(0, p.syy[n] - (c * sy + sg * suy + sl * svy));
-  // Inverse of the 3×3 matrix (for covariances), by the Schur complement on c.
-  const ic = 1 / d;
-  const a = -su / suu;
-  const b = -sv / svv;
+  const io = p.io;
+  io[0] = tb;
+  hingeSse(p, k);
+  if (!Number.isFinite(io[1])) return null;
+  const [ic, a, b, suu, svv] = [io[5], io[6], io[7], io[8], io[9]];
   const inv = [
     [ic, ic * a, ic * b],
     [ic * a, 1 / suu + ic * a * a, ic * a * b],
     [ic * b, ic * a * b, 1 / svv + ic * b * b],
   ];
-  return { sse, c, sg, sl, inv };
+  return { sse: io[1], c: io[2], sg: io[3], sl: io[4], inv };
 }
 
 /**

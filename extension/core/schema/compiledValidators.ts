@@ -10,279 +10,16 @@ function ucs2length(str) {
   return length;
 }
 
-export const material = validate20;
-const schema31 = {"$schema":"https://json-schema.org/draft/2020-12/schema","$id":"https://vitrine.invalid/schemas/material.schema.json","title":"Vitrine material block","description":"A glass-forming material and its reference properties.","type":"object","properties":{"name":{"type":"string","description":"name of the material"},"tg":{"type":["string","number"],"quantityOf":"temperature","description":"standard Tg: glass transition on cooling at 10 K/min"},"tg_source":{"type":"string","description":"where tg comes from: a citation or the id of a block"},"vft":{"type":"object","description":"decadic VFT parameters: log10 τ = log10_tau0 + B/(T − T0), τ in s","properties":{"log10_tau0":{"type":"number","description":"log10 of τ0 in seconds"},"B":{"type":["string","number"],"quantityOf":"temperature_interval","description":"VFT B (decadic), a temperature"},"T0":{"type":["string","number"],"quantityOf":"temperature","description":"VFT divergence temperature"}},"required":["log10_tau0","B","T0"],"additionalProperties":false},"molar_mass":{"type":["string","number"],"quantityOf":"molar_mass","quantityExclusiveMinimum":0,"description":"molar mass"},"tm":{"type":["string","number"],"quantityOf":"temperature","description":"melting temperature"},"delta_cp":{"type":["string","number"],"quantityOf":"heat_capacity","quantityExclusiveMinimum":0,"description":"heat-capacity step at Tg"},"structure":{"type":"string","description":"SMILES or InChIKey"},"notes":{"type":"string","description":"free text"}},"required":["name","tg"],"recommended":{"tg_source":"a Tg without its source cannot be checked"},"additionalProperties":false};
+export const deposition = validate20;
+const schema31 = {"$schema":"https://json-schema.org/draft/2020-12/schema","$id":"https://vitrine.invalid/schemas/deposition.schema.json","title":"Vitrine deposition block","description":"One film grown by physical vapor deposition.","type":"object","properties":{"material":{"type":"string","pattern":"^[A-Za-z0-9][A-Za-z0-9._:-]*$","description":"id of the material block"},"substrate_temperature":{"type":["string","number"],"quantityOf":"temperature","description":"substrate temperature during deposition"},"rate":{"type":["string","number"],"quantityOf":"rate","quantityExclusiveMinimum":0,"description":"deposition rate"},"thickness":{"type":["string","number"],"quantityOf":"length","quantityExclusiveMinimum":0,"description":"film thickness as deposited"},"duration":{"type":["string","number"],"quantityOf":"time","quantityExclusiveMinimum":0,"description":"deposition time"},"base_pressure":{"type":["string","number"],"quantityOf":"pressure","quantityBound":true,"description":"chamber base pressure; a bound such as \"< 3e-7 Torr\" is accepted"},"substrate":{"type":"string","description":"substrate material and surface, e.g. silicon, native oxide"},"source_temperature":{"type":["string","number"],"quantityOf":"temperature","description":"evaporation source temperature"},"sensor":{"type":"string","description":"how the substrate temperature was measured"},"date":{"type":["string"],"description":"date of the deposition"},"operator":{"type":"string","description":"who grew the film"},"chamber":{"type":"string","description":"which chamber"},"notes":{"type":"string","description":"free text"}},"required":["material","substrate_temperature","rate"],"anyOf":[{"required":["thickness"]},{"required":["duration"]}],"recommended":{"base_pressure":"residual gas changes what grows, and a deposition record is not reproducible without it","substrate":"the substrate and its surface affect the first layers"},"additionalProperties":false};
 const func1 = Object.prototype.hasOwnProperty;
-
-function validate20(data, {instancePath="", parentData, parentDataProperty, rootData=data, dynamicAnchors={}}={}){
-/*# sourceURL="https://vitrine.invalid/schemas/material.schema.json" */;
-let vErrors = null;
-let errors = 0;
-const evaluated0 = validate20.evaluated;
-if(evaluated0.dynamicProps){
-evaluated0.props = undefined;
-}
-if(evaluated0.dynamicItems){
-evaluated0.items = undefined;
-}
-if(data && typeof data == "object" && !Array.isArray(data)){
-if(data.name === undefined){
-const err0 = {instancePath,schemaPath:"#/required",keyword:"required",params:{missingProperty: "name"},message:"must have required property '"+"name"+"'",schema:schema31.required,parentSchema:schema31,data};
-if(vErrors === null){
-vErrors = [err0];
-}
-else {
-vErrors.push(err0);
-}
-errors++;
-}
-if(data.tg === undefined){
-const err1 = {instancePath,schemaPath:"#/required",keyword:"required",params:{missingProperty: "tg"},message:"must have required property '"+"tg"+"'",schema:schema31.required,parentSchema:schema31,data};
-if(vErrors === null){
-vErrors = [err1];
-}
-else {
-vErrors.push(err1);
-}
-errors++;
-}
-for(const key0 in data){
-if(!(func1.call(schema31.properties, key0))){
-const err2 = {instancePath,schemaPath:"#/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key0},message:"must NOT have additional properties",schema:false,parentSchema:schema31,data};
-if(vErrors === null){
-vErrors = [err2];
-}
-else {
-vErrors.push(err2);
-}
-errors++;
-}
-}
-if(data.name !== undefined){
-let data0 = data.name;
-if(typeof data0 !== "string"){
-const err3 = {instancePath:instancePath+"/name",schemaPath:"#/properties/name/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema31.properties.name.type,parentSchema:schema31.properties.name,data:data0};
-if(vErrors === null){
-vErrors = [err3];
-}
-else {
-vErrors.push(err3);
-}
-errors++;
-}
-}
-if(data.tg !== undefined){
-let data1 = data.tg;
-if((typeof data1 !== "string") && (!((typeof data1 == "number") && (isFinite(data1))))){
-const err4 = {instancePath:instancePath+"/tg",schemaPath:"#/properties/tg/type",keyword:"type",params:{type: schema31.properties.tg.type},message:"must be string,number",schema:schema31.properties.tg.type,parentSchema:schema31.properties.tg,data:data1};
-if(vErrors === null){
-vErrors = [err4];
-}
-else {
-vErrors.push(err4);
-}
-errors++;
-}
-}
-if(data.tg_source !== undefined){
-let data2 = data.tg_source;
-if(typeof data2 !== "string"){
-const err5 = {instancePath:instancePath+"/tg_source",schemaPath:"#/properties/tg_source/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema31.properties.tg_source.type,parentSchema:schema31.properties.tg_source,data:data2};
-if(vErrors === null){
-vErrors = [err5];
-}
-else {
-vErrors.push(err5);
-}
-errors++;
-}
-}
-if(data.vft !== undefined){
-let data3 = data.vft;
-if(data3 && typeof data3 == "object" && !Array.isArray(data3)){
-if(data3.log10_tau0 === undefined){
-const err6 = {instancePath:instancePath+"/vft",schemaPath:"#/properties/vft/required",keyword:"required",params:{missingProperty: "log10_tau0"},message:"must have required property '"+"log10_tau0"+"'",schema:schema31.properties.vft.required,parentSchema:schema31.properties.vft,data:data3};
-if(vErrors === null){
-vErrors = [err6];
-}
-else {
-vErrors.push(err6);
-}
-errors++;
-}
-if(data3.B === undefined){
-const err7 = {instancePath:instancePath+"/vft",schemaPath:"#/properties/vft/required",keyword:"required",params:{missingProperty: "B"},message:"must have required property '"+"B"+"'",schema:schema31.properties.vft.required,parentSchema:schema31.properties.vft,data:data3};
-if(vErrors === null){
-vErrors = [err7];
-}
-else {
-vErrors.push(err7);
-}
-errors++;
-}
-if(data3.T0 === undefined){
-const err8 = {instancePath:instancePath+"/vft",schemaPath:"#/properties/vft/required",keyword:"required",params:{missingProperty: "T0"},message:"must have required property '"+"T0"+"'",schema:schema31.properties.vft.required,parentSchema:schema31.properties.vft,data:data3};
-if(vErrors === null){
-vErrors = [err8];
-}
-else {
-vErrors.push(err8);
-}
-errors++;
-}
-for(const key1 in data3){
-if(!(((key1 === "log10_tau0") || (key1 === "B")) || (key1 === "T0"))){
-const err9 = {instancePath:instancePath+"/vft",schemaPath:"#/properties/vft/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key1},message:"must NOT have additional properties",schema:false,parentSchema:schema31.properties.vft,data:data3};
-if(vErrors === null){
-vErrors = [err9];
-}
-else {
-vErrors.push(err9);
-}
-errors++;
-}
-}
-if(data3.log10_tau0 !== undefined){
-let data4 = data3.log10_tau0;
-if(!((typeof data4 == "number") && (isFinite(data4)))){
-const err10 = {instancePath:instancePath+"/vft/log10_tau0",schemaPath:"#/properties/vft/properties/log10_tau0/type",keyword:"type",params:{type: "number"},message:"must be number",schema:schema31.properties.vft.properties.log10_tau0.type,parentSchema:schema31.properties.vft.properties.log10_tau0,data:data4};
-if(vErrors === null){
-vErrors = [err10];
-}
-else {
-vErrors.push(err10);
-}
-errors++;
-}
-}
-if(data3.B !== undefined){
-let data5 = data3.B;
-if((typeof data5 !== "string") && (!((typeof data5 == "number") && (isFinite(data5))))){
-const err11 = {instancePath:instancePath+"/vft/B",schemaPath:"#/properties/vft/properties/B/type",keyword:"type",params:{type: schema31.properties.vft.properties.B.type},message:"must be string,number",schema:schema31.properties.vft.properties.B.type,parentSchema:schema31.properties.vft.properties.B,data:data5};
-if(vErrors === null){
-vErrors = [err11];
-}
-else {
-vErrors.push(err11);
-}
-errors++;
-}
-}
-if(data3.T0 !== undefined){
-let data6 = data3.T0;
-if((typeof data6 !== "string") && (!((typeof data6 == "number") && (isFinite(data6))))){
-const err12 = {instancePath:instancePath+"/vft/T0",schemaPath:"#/properties/vft/properties/T0/type",keyword:"type",params:{type: schema31.properties.vft.properties.T0.type},message:"must be string,number",schema:schema31.properties.vft.properties.T0.type,parentSchema:schema31.properties.vft.properties.T0,data:data6};
-if(vErrors === null){
-vErrors = [err12];
-}
-else {
-vErrors.push(err12);
-}
-errors++;
-}
-}
-}
-else {
-const err13 = {instancePath:instancePath+"/vft",schemaPath:"#/properties/vft/type",keyword:"type",params:{type: "object"},message:"must be object",schema:schema31.properties.vft.type,parentSchema:schema31.properties.vft,data:data3};
-if(vErrors === null){
-vErrors = [err13];
-}
-else {
-vErrors.push(err13);
-}
-errors++;
-}
-}
-if(data.molar_mass !== undefined){
-let data7 = data.molar_mass;
-if((typeof data7 !== "string") && (!((typeof data7 == "number") && (isFinite(data7))))){
-const err14 = {instancePath:instancePath+"/molar_mass",schemaPath:"#/properties/molar_mass/type",keyword:"type",params:{type: schema31.properties.molar_mass.type},message:"must be string,number",schema:schema31.properties.molar_mass.type,parentSchema:schema31.properties.molar_mass,data:data7};
-if(vErrors === null){
-vErrors = [err14];
-}
-else {
-vErrors.push(err14);
-}
-errors++;
-}
-}
-if(data.tm !== undefined){
-let data8 = data.tm;
-if((typeof data8 !== "string") && (!((typeof data8 == "number") && (isFinite(data8))))){
-const err15 = {instancePath:instancePath+"/tm",schemaPath:"#/properties/tm/type",keyword:"type",params:{type: schema31.properties.tm.type},message:"must be string,number",schema:schema31.properties.tm.type,parentSchema:schema31.properties.tm,data:data8};
-if(vErrors === null){
-vErrors = [err15];
-}
-else {
-vErrors.push(err15);
-}
-errors++;
-}
-}
-if(data.delta_cp !== undefined){
-let data9 = data.delta_cp;
-if((typeof data9 !== "string") && (!((typeof data9 == "number") && (isFinite(data9))))){
-const err16 = {instancePath:instancePath+"/delta_cp",schemaPath:"#/properties/delta_cp/type",keyword:"type",params:{type: schema31.properties.delta_cp.type},message:"must be string,number",schema:schema31.properties.delta_cp.type,parentSchema:schema31.properties.delta_cp,data:data9};
-if(vErrors === null){
-vErrors = [err16];
-}
-else {
-vErrors.push(err16);
-}
-errors++;
-}
-}
-if(data.structure !== undefined){
-let data10 = data.structure;
-if(typeof data10 !== "string"){
-const err17 = {instancePath:instancePath+"/structure",schemaPath:"#/properties/structure/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema31.properties.structure.type,parentSchema:schema31.properties.structure,data:data10};
-if(vErrors === null){
-vErrors = [err17];
-}
-else {
-vErrors.push(err17);
-}
-errors++;
-}
-}
-if(data.notes !== undefined){
-let data11 = data.notes;
-if(typeof data11 !== "string"){
-const err18 = {instancePath:instancePath+"/notes",schemaPath:"#/properties/notes/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema31.properties.notes.type,parentSchema:schema31.properties.notes,data:data11};
-if(vErrors === null){
-vErrors = [err18];
-}
-else {
-vErrors.push(err18);
-}
-errors++;
-}
-}
-}
-else {
-const err19 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object",schema:schema31.type,parentSchema:schema31,data};
-if(vErrors === null){
-vErrors = [err19];
-}
-else {
-vErrors.push(err19);
-}
-errors++;
-}
-validate20.errors = vErrors;
-return errors === 0;
-}
-validate20.evaluated = {"props":true,"dynamicProps":false,"dynamicItems":false};
-
-export const deposition = validate21;
-const schema32 = {"$schema":"https://json-schema.org/draft/2020-12/schema","$id":"https://vitrine.invalid/schemas/deposition.schema.json","title":"Vitrine deposition block","description":"One film grown by physical vapor deposition.","type":"object","properties":{"material":{"type":"string","pattern":"^[A-Za-z0-9][A-Za-z0-9._:-]*$","description":"id of the material block"},"substrate_temperature":{"type":["string","number"],"quantityOf":"temperature","description":"substrate temperature during deposition"},"rate":{"type":["string","number"],"quantityOf":"rate","quantityExclusiveMinimum":0,"description":"deposition rate"},"thickness":{"type":["string","number"],"quantityOf":"length","quantityExclusiveMinimum":0,"description":"film thickness as deposited"},"duration":{"type":["string","number"],"quantityOf":"time","quantityExclusiveMinimum":0,"description":"deposition time"},"base_pressure":{"type":["string","number"],"quantityOf":"pressure","quantityBound":true,"description":"chamber base pressure; a bound such as \"< 3e-7 Torr\" is accepted"},"substrate":{"type":"string","description":"substrate material and surface, e.g. silicon, native oxide"},"source_temperature":{"type":["string","number"],"quantityOf":"temperature","description":"evaporation source temperature"},"sensor":{"type":"string","description":"how the substrate temperature was measured"},"date":{"type":["string"],"description":"date of the deposition"},"operator":{"type":"string","description":"who grew the film"},"chamber":{"type":"string","description":"which chamber"},"notes":{"type":"string","description":"free text"}},"required":["material","substrate_temperature","rate"],"anyOf":[{"required":["thickness"]},{"required":["duration"]}],"recommended":{"base_pressure":"residual gas changes what grows, and a deposition record is not reproducible without it","substrate":"the substrate and its surface affect the first layers"},"additionalProperties":false};
 const pattern4 = new RegExp("^[A-Za-z0-9][A-Za-z0-9._:-]*$", "u");
 
-function validate21(data, {instancePath="", parentData, parentDataProperty, rootData=data, dynamicAnchors={}}={}){
+function validate20(data, {instancePath="", parentData, parentDataProperty, rootData=data, dynamicAnchors={}}={}){
 /*# sourceURL="https://vitrine.invalid/schemas/deposition.schema.json" */;
 let vErrors = null;
 let errors = 0;
-const evaluated0 = validate21.evaluated;
+const evaluated0 = validate20.evaluated;
 if(evaluated0.dynamicProps){
 evaluated0.props = undefined;
 }
@@ -294,7 +31,7 @@ let valid0 = false;
 const _errs2 = errors;
 if(data && typeof data == "object" && !Array.isArray(data)){
 if(data.thickness === undefined){
-const err0 = {instancePath,schemaPath:"#/anyOf/0/required",keyword:"required",params:{missingProperty: "thickness"},message:"must have required property '"+"thickness"+"'",schema:schema32.anyOf[0].required,parentSchema:schema32.anyOf[0],data};
+const err0 = {instancePath,schemaPath:"#/anyOf/0/required",keyword:"required",params:{missingProperty: "thickness"},message:"must have required property '"+"thickness"+"'",schema:schema31.anyOf[0].required,parentSchema:schema31.anyOf[0],data};
 if(vErrors === null){
 vErrors = [err0];
 }
@@ -309,7 +46,315 @@ valid0 = valid0 || _valid0;
 const _errs3 = errors;
 if(data && typeof data == "object" && !Array.isArray(data)){
 if(data.duration === undefined){
-const err1 = {instancePath,schemaPath:"#/anyOf/1/required",keyword:"required",params:{missingProperty: "duration"},message:"must have required property '"+"duration"+"'",schema:schema32.anyOf[1].required,parentSchema:schema32.anyOf[1],data};
+const err1 = {instancePath,schemaPath:"#/anyOf/1/required",keyword:"required",params:{missingProperty: "duration"},message:"must have required property '"+"duration"+"'",schema:schema31.anyOf[1].required,parentSchema:schema31.anyOf[1],data};
+if(vErrors === null){
+vErrors = [err1];
+}
+else {
+vErrors.push(err1);
+}
+errors++;
+}
+}
+var _valid0 = _errs3 === errors;
+valid0 = valid0 || _valid0;
+if(!valid0){
+const err2 = {instancePath,schemaPath:"#/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf",schema:schema31.anyOf,parentSchema:schema31,data};
+if(vErrors === null){
+vErrors = [err2];
+}
+else {
+vErrors.push(err2);
+}
+errors++;
+}
+else {
+errors = _errs1;
+if(vErrors !== null){
+if(_errs1){
+vErrors.length = _errs1;
+}
+else {
+vErrors = null;
+}
+}
+}
+if(data && typeof data == "object" && !Array.isArray(data)){
+if(data.material === undefined){
+const err3 = {instancePath,schemaPath:"#/required",keyword:"required",params:{missingProperty: "material"},message:"must have required property '"+"material"+"'",schema:schema31.required,parentSchema:schema31,data};
+if(vErrors === null){
+vErrors = [err3];
+}
+else {
+vErrors.push(err3);
+}
+errors++;
+}
+if(data.substrate_temperature === undefined){
+const err4 = {instancePath,schemaPath:"#/required",keyword:"required",params:{missingProperty: "substrate_temperature"},message:"must have required property '"+"substrate_temperature"+"'",schema:schema31.required,parentSchema:schema31,data};
+if(vErrors === null){
+vErrors = [err4];
+}
+else {
+vErrors.push(err4);
+}
+errors++;
+}
+if(data.rate === undefined){
+const err5 = {instancePath,schemaPath:"#/required",keyword:"required",params:{missingProperty: "rate"},message:"must have required property '"+"rate"+"'",schema:schema31.required,parentSchema:schema31,data};
+if(vErrors === null){
+vErrors = [err5];
+}
+else {
+vErrors.push(err5);
+}
+errors++;
+}
+for(const key0 in data){
+if(!(func1.call(schema31.properties, key0))){
+const err6 = {instancePath,schemaPath:"#/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key0},message:"must NOT have additional properties",schema:false,parentSchema:schema31,data};
+if(vErrors === null){
+vErrors = [err6];
+}
+else {
+vErrors.push(err6);
+}
+errors++;
+}
+}
+if(data.material !== undefined){
+let data0 = data.material;
+if(typeof data0 === "string"){
+if(!pattern4.test(data0)){
+const err7 = {instancePath:instancePath+"/material",schemaPath:"#/properties/material/pattern",keyword:"pattern",params:{pattern: "^[A-Za-z0-9][A-Za-z0-9._:-]*$"},message:"must match pattern \""+"^[A-Za-z0-9][A-Za-z0-9._:-]*$"+"\"",schema:"^[A-Za-z0-9][A-Za-z0-9._:-]*$",parentSchema:schema31.properties.material,data:data0};
+if(vErrors === null){
+vErrors = [err7];
+}
+else {
+vErrors.push(err7);
+}
+errors++;
+}
+}
+else {
+const err8 = {instancePath:instancePath+"/material",schemaPath:"#/properties/material/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema31.properties.material.type,parentSchema:schema31.properties.material,data:data0};
+if(vErrors === null){
+vErrors = [err8];
+}
+else {
+vErrors.push(err8);
+}
+errors++;
+}
+}
+if(data.substrate_temperature !== undefined){
+let data1 = data.substrate_temperature;
+if((typeof data1 !== "string") && (!((typeof data1 == "number") && (isFinite(data1))))){
+const err9 = {instancePath:instancePath+"/substrate_temperature",schemaPath:"#/properties/substrate_temperature/type",keyword:"type",params:{type: schema31.properties.substrate_temperature.type},message:"must be string,number",schema:schema31.properties.substrate_temperature.type,parentSchema:schema31.properties.substrate_temperature,data:data1};
+if(vErrors === null){
+vErrors = [err9];
+}
+else {
+vErrors.push(err9);
+}
+errors++;
+}
+}
+if(data.rate !== undefined){
+let data2 = data.rate;
+if((typeof data2 !== "string") && (!((typeof data2 == "number") && (isFinite(data2))))){
+const err10 = {instancePath:instancePath+"/rate",schemaPath:"#/properties/rate/type",keyword:"type",params:{type: schema31.properties.rate.type},message:"must be string,number",schema:schema31.properties.rate.type,parentSchema:schema31.properties.rate,data:data2};
+if(vErrors === null){
+vErrors = [err10];
+}
+else {
+vErrors.push(err10);
+}
+errors++;
+}
+}
+if(data.thickness !== undefined){
+let data3 = data.thickness;
+if((typeof data3 !== "string") && (!((typeof data3 == "number") && (isFinite(data3))))){
+const err11 = {instancePath:instancePath+"/thickness",schemaPath:"#/properties/thickness/type",keyword:"type",params:{type: schema31.properties.thickness.type},message:"must be string,number",schema:schema31.properties.thickness.type,parentSchema:schema31.properties.thickness,data:data3};
+if(vErrors === null){
+vErrors = [err11];
+}
+else {
+vErrors.push(err11);
+}
+errors++;
+}
+}
+if(data.duration !== undefined){
+let data4 = data.duration;
+if((typeof data4 !== "string") && (!((typeof data4 == "number") && (isFinite(data4))))){
+const err12 = {instancePath:instancePath+"/duration",schemaPath:"#/properties/duration/type",keyword:"type",params:{type: schema31.properties.duration.type},message:"must be string,number",schema:schema31.properties.duration.type,parentSchema:schema31.properties.duration,data:data4};
+if(vErrors === null){
+vErrors = [err12];
+}
+else {
+vErrors.push(err12);
+}
+errors++;
+}
+}
+if(data.base_pressure !== undefined){
+let data5 = data.base_pressure;
+if((typeof data5 !== "string") && (!((typeof data5 == "number") && (isFinite(data5))))){
+const err13 = {instancePath:instancePath+"/base_pressure",schemaPath:"#/properties/base_pressure/type",keyword:"type",params:{type: schema31.properties.base_pressure.type},message:"must be string,number",schema:schema31.properties.base_pressure.type,parentSchema:schema31.properties.base_pressure,data:data5};
+if(vErrors === null){
+vErrors = [err13];
+}
+else {
+vErrors.push(err13);
+}
+errors++;
+}
+}
+if(data.substrate !== undefined){
+let data6 = data.substrate;
+if(typeof data6 !== "string"){
+const err14 = {instancePath:instancePath+"/substrate",schemaPath:"#/properties/substrate/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema31.properties.substrate.type,parentSchema:schema31.properties.substrate,data:data6};
+if(vErrors === null){
+vErrors = [err14];
+}
+else {
+vErrors.push(err14);
+}
+errors++;
+}
+}
+if(data.source_temperature !== undefined){
+let data7 = data.source_temperature;
+if((typeof data7 !== "string") && (!((typeof data7 == "number") && (isFinite(data7))))){
+const err15 = {instancePath:instancePath+"/source_temperature",schemaPath:"#/properties/source_temperature/type",keyword:"type",params:{type: schema31.properties.source_temperature.type},message:"must be string,number",schema:schema31.properties.source_temperature.type,parentSchema:schema31.properties.source_temperature,data:data7};
+if(vErrors === null){
+vErrors = [err15];
+}
+else {
+vErrors.push(err15);
+}
+errors++;
+}
+}
+if(data.sensor !== undefined){
+let data8 = data.sensor;
+if(typeof data8 !== "string"){
+const err16 = {instancePath:instancePath+"/sensor",schemaPath:"#/properties/sensor/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema31.properties.sensor.type,parentSchema:schema31.properties.sensor,data:data8};
+if(vErrors === null){
+vErrors = [err16];
+}
+else {
+vErrors.push(err16);
+}
+errors++;
+}
+}
+if(data.date !== undefined){
+let data9 = data.date;
+if(typeof data9 !== "string"){
+const err17 = {instancePath:instancePath+"/date",schemaPath:"#/properties/date/type",keyword:"type",params:{type: schema31.properties.date.type},message:"must be string",schema:schema31.properties.date.type,parentSchema:schema31.properties.date,data:data9};
+if(vErrors === null){
+vErrors = [err17];
+}
+else {
+vErrors.push(err17);
+}
+errors++;
+}
+}
+if(data.operator !== undefined){
+let data10 = data.operator;
+if(typeof data10 !== "string"){
+const err18 = {instancePath:instancePath+"/operator",schemaPath:"#/properties/operator/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema31.properties.operator.type,parentSchema:schema31.properties.operator,data:data10};
+if(vErrors === null){
+vErrors = [err18];
+}
+else {
+vErrors.push(err18);
+}
+errors++;
+}
+}
+if(data.chamber !== undefined){
+let data11 = data.chamber;
+if(typeof data11 !== "string"){
+const err19 = {instancePath:instancePath+"/chamber",schemaPath:"#/properties/chamber/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema31.properties.chamber.type,parentSchema:schema31.properties.chamber,data:data11};
+if(vErrors === null){
+vErrors = [err19];
+}
+else {
+vErrors.push(err19);
+}
+errors++;
+}
+}
+if(data.notes !== undefined){
+let data12 = data.notes;
+if(typeof data12 !== "string"){
+const err20 = {instancePath:instancePath+"/notes",schemaPath:"#/properties/notes/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema31.properties.notes.type,parentSchema:schema31.properties.notes,data:data12};
+if(vErrors === null){
+vErrors = [err20];
+}
+else {
+vErrors.push(err20);
+}
+errors++;
+}
+}
+}
+else {
+const err21 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object",schema:schema31.type,parentSchema:schema31,data};
+if(vErrors === null){
+vErrors = [err21];
+}
+else {
+vErrors.push(err21);
+}
+errors++;
+}
+validate20.errors = vErrors;
+return errors === 0;
+}
+validate20.evaluated = {"props":true,"dynamicProps":false,"dynamicItems":false};
+
+export const dsc = validate21;
+const schema32 = {"$schema":"https://json-schema.org/draft/2020-12/schema","$id":"https://vitrine.invalid/schemas/dsc.schema.json","title":"Vitrine dsc block","description":"A calorimetry scan: heat capacity or heat flow against temperature.","type":"object","properties":{"film":{"type":"string","pattern":"^[A-Za-z0-9][A-Za-z0-9._:-]*$","description":"id of the deposition block"},"material":{"type":"string","pattern":"^[A-Za-z0-9][A-Za-z0-9._:-]*$","description":"id of the material block"},"rate":{"type":["string","number"],"quantityOf":"heating_rate","quantityExclusiveMinimum":0,"description":"heating rate"},"quantity":{"enum":["heat capacity","heat flow"],"description":"what the data column holds (default heat capacity)"},"mass":{"type":["string","number"],"quantityOf":"mass","quantityExclusiveMinimum":0,"description":"sample mass (needed for heat flow in mW; not for heat flow per mass, W/g)"},"endotherm":{"enum":["up","down"],"description":"sign convention of the heat-flow column: endotherms plotted up (heat into the sample positive, the default) or down; without this key, the convention a header states (Heat Flow (Endo Up)) is used"},"temperature_calibration":{"type":["string","number"],"quantityOf":"temperature_interval","description":"standard uncertainty of the temperature calibration (ASTM E967), entered in the budget of every temperature figure (default 0.5 K)"},"reference":{"type":"string","pattern":"^[A-Za-z0-9][A-Za-z0-9._:-]*$","description":"id of the liquid-cooled reference scan"},"data":{"type":"string","minLength":1,"description":"path of a CSV/TSV data file, relative to this notebook file, inside the notebook folder"},"columns":{"type":"object","description":"which table header holds each role","properties":{"temperature":{"type":"string"},"heat_capacity":{"type":"string"},"heat_flow":{"type":"string"}},"additionalProperties":false},"windows":{"type":"object","properties":{"glass":{"type":"array","prefixItems":[{"type":["string","number"],"quantityOf":"temperature","description":"lower end"},{"type":["string","number"],"quantityOf":"temperature","description":"upper end"}],"items":false,"minItems":2,"maxItems":2,"description":"[low, high] temperature range"},"liquid":{"type":"array","prefixItems":[{"type":["string","number"],"quantityOf":"temperature","description":"lower end"},{"type":["string","number"],"quantityOf":"temperature","description":"upper end"}],"items":false,"minItems":2,"maxItems":2,"description":"[low, high] temperature range"}},"additionalProperties":false},"notes":{"type":"string","description":"free text"}},"required":["rate"],"anyOf":[{"required":["film"]},{"required":["material"]}],"additionalProperties":false};
+const func3 = ucs2length;
+
+function validate21(data, {instancePath="", parentData, parentDataProperty, rootData=data, dynamicAnchors={}}={}){
+/*# sourceURL="https://vitrine.invalid/schemas/dsc.schema.json" */;
+let vErrors = null;
+let errors = 0;
+const evaluated0 = validate21.evaluated;
+if(evaluated0.dynamicProps){
+evaluated0.props = undefined;
+}
+if(evaluated0.dynamicItems){
+evaluated0.items = undefined;
+}
+const _errs1 = errors;
+let valid0 = false;
+const _errs2 = errors;
+if(data && typeof data == "object" && !Array.isArray(data)){
+if(data.film === undefined){
+const err0 = {instancePath,schemaPath:"#/anyOf/0/required",keyword:"required",params:{missingProperty: "film"},message:"must have required property '"+"film"+"'",schema:schema32.anyOf[0].required,parentSchema:schema32.anyOf[0],data};
+if(vErrors === null){
+vErrors = [err0];
+}
+else {
+vErrors.push(err0);
+}
+errors++;
+}
+}
+var _valid0 = _errs2 === errors;
+valid0 = valid0 || _valid0;
+const _errs3 = errors;
+if(data && typeof data == "object" && !Array.isArray(data)){
+if(data.material === undefined){
+const err1 = {instancePath,schemaPath:"#/anyOf/1/required",keyword:"required",params:{missingProperty: "material"},message:"must have required property '"+"material"+"'",schema:schema32.anyOf[1].required,parentSchema:schema32.anyOf[1],data};
 if(vErrors === null){
 vErrors = [err1];
 }
@@ -343,8 +388,8 @@ vErrors = null;
 }
 }
 if(data && typeof data == "object" && !Array.isArray(data)){
-if(data.material === undefined){
-const err3 = {instancePath,schemaPath:"#/required",keyword:"required",params:{missingProperty: "material"},message:"must have required property '"+"material"+"'",schema:schema32.required,parentSchema:schema32,data};
+if(data.rate === undefined){
+const err3 = {instancePath,schemaPath:"#/required",keyword:"required",params:{missingProperty: "rate"},message:"must have required property '"+"rate"+"'",schema:schema32.required,parentSchema:schema32,data};
 if(vErrors === null){
 vErrors = [err3];
 }
@@ -353,8 +398,9 @@ vErrors.push(err3);
 }
 errors++;
 }
-if(data.substrate_temperature === undefined){
-const err4 = {instancePath,schemaPath:"#/required",keyword:"required",params:{missingProperty: "substrate_temperature"},message:"must have required property '"+"substrate_temperature"+"'",schema:schema32.required,parentSchema:schema32,data};
+for(const key0 in data){
+if(!(func1.call(schema32.properties, key0))){
+const err4 = {instancePath,schemaPath:"#/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key0},message:"must NOT have additional properties",schema:false,parentSchema:schema32,data};
 if(vErrors === null){
 vErrors = [err4];
 }
@@ -363,8 +409,12 @@ vErrors.push(err4);
 }
 errors++;
 }
-if(data.rate === undefined){
-const err5 = {instancePath,schemaPath:"#/required",keyword:"required",params:{missingProperty: "rate"},message:"must have required property '"+"rate"+"'",schema:schema32.required,parentSchema:schema32,data};
+}
+if(data.film !== undefined){
+let data0 = data.film;
+if(typeof data0 === "string"){
+if(!pattern4.test(data0)){
+const err5 = {instancePath:instancePath+"/film",schemaPath:"#/properties/film/pattern",keyword:"pattern",params:{pattern: "^[A-Za-z0-9][A-Za-z0-9._:-]*$"},message:"must match pattern \""+"^[A-Za-z0-9][A-Za-z0-9._:-]*$"+"\"",schema:"^[A-Za-z0-9][A-Za-z0-9._:-]*$",parentSchema:schema32.properties.film,data:data0};
 if(vErrors === null){
 vErrors = [err5];
 }
@@ -373,9 +423,9 @@ vErrors.push(err5);
 }
 errors++;
 }
-for(const key0 in data){
-if(!(func1.call(schema32.properties, key0))){
-const err6 = {instancePath,schemaPath:"#/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key0},message:"must NOT have additional properties",schema:false,parentSchema:schema32,data};
+}
+else {
+const err6 = {instancePath:instancePath+"/film",schemaPath:"#/properties/film/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema32.properties.film.type,parentSchema:schema32.properties.film,data:data0};
 if(vErrors === null){
 vErrors = [err6];
 }
@@ -386,10 +436,10 @@ errors++;
 }
 }
 if(data.material !== undefined){
-let data0 = data.material;
-if(typeof data0 === "string"){
-if(!pattern4.test(data0)){
-const err7 = {instancePath:instancePath+"/material",schemaPath:"#/properties/material/pattern",keyword:"pattern",params:{pattern: "^[A-Za-z0-9][A-Za-z0-9._:-]*$"},message:"must match pattern \""+"^[A-Za-z0-9][A-Za-z0-9._:-]*$"+"\"",schema:"^[A-Za-z0-9][A-Za-z0-9._:-]*$",parentSchema:schema32.properties.material,data:data0};
+let data1 = data.material;
+if(typeof data1 === "string"){
+if(!pattern4.test(data1)){
+const err7 = {instancePath:instancePath+"/material",schemaPath:"#/properties/material/pattern",keyword:"pattern",params:{pattern: "^[A-Za-z0-9][A-Za-z0-9._:-]*$"},message:"must match pattern \""+"^[A-Za-z0-9][A-Za-z0-9._:-]*$"+"\"",schema:"^[A-Za-z0-9][A-Za-z0-9._:-]*$",parentSchema:schema32.properties.material,data:data1};
 if(vErrors === null){
 vErrors = [err7];
 }
@@ -400,7 +450,7 @@ errors++;
 }
 }
 else {
-const err8 = {instancePath:instancePath+"/material",schemaPath:"#/properties/material/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema32.properties.material.type,parentSchema:schema32.properties.material,data:data0};
+const err8 = {instancePath:instancePath+"/material",schemaPath:"#/properties/material/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema32.properties.material.type,parentSchema:schema32.properties.material,data:data1};
 if(vErrors === null){
 vErrors = [err8];
 }
@@ -410,10 +460,10 @@ vErrors.push(err8);
 errors++;
 }
 }
-if(data.substrate_temperature !== undefined){
-let data1 = data.substrate_temperature;
-if((typeof data1 !== "string") && (!((typeof data1 == "number") && (isFinite(data1))))){
-const err9 = {instancePath:instancePath+"/substrate_temperature",schemaPath:"#/properties/substrate_temperature/type",keyword:"type",params:{type: schema32.properties.substrate_temperature.type},message:"must be string,number",schema:schema32.properties.substrate_temperature.type,parentSchema:schema32.properties.substrate_temperature,data:data1};
+if(data.rate !== undefined){
+let data2 = data.rate;
+if((typeof data2 !== "string") && (!((typeof data2 == "number") && (isFinite(data2))))){
+const err9 = {instancePath:instancePath+"/rate",schemaPath:"#/properties/rate/type",keyword:"type",params:{type: schema32.properties.rate.type},message:"must be string,number",schema:schema32.properties.rate.type,parentSchema:schema32.properties.rate,data:data2};
 if(vErrors === null){
 vErrors = [err9];
 }
@@ -423,10 +473,10 @@ vErrors.push(err9);
 errors++;
 }
 }
-if(data.rate !== undefined){
-let data2 = data.rate;
-if((typeof data2 !== "string") && (!((typeof data2 == "number") && (isFinite(data2))))){
-const err10 = {instancePath:instancePath+"/rate",schemaPath:"#/properties/rate/type",keyword:"type",params:{type: schema32.properties.rate.type},message:"must be string,number",schema:schema32.properties.rate.type,parentSchema:schema32.properties.rate,data:data2};
+if(data.quantity !== undefined){
+let data3 = data.quantity;
+if(!((data3 === "heat capacity") || (data3 === "heat flow"))){
+const err10 = {instancePath:instancePath+"/quantity",schemaPath:"#/properties/quantity/enum",keyword:"enum",params:{allowedValues: schema32.properties.quantity.enum},message:"must be equal to one of the allowed values",schema:schema32.properties.quantity.enum,parentSchema:schema32.properties.quantity,data:data3};
 if(vErrors === null){
 vErrors = [err10];
 }
@@ -436,10 +486,10 @@ vErrors.push(err10);
 errors++;
 }
 }
-if(data.thickness !== undefined){
-let data3 = data.thickness;
-if((typeof data3 !== "string") && (!((typeof data3 == "number") && (isFinite(data3))))){
-const err11 = {instancePath:instancePath+"/thickness",schemaPath:"#/properties/thickness/type",keyword:"type",params:{type: schema32.properties.thickness.type},message:"must be string,number",schema:schema32.properties.thickness.type,parentSchema:schema32.properties.thickness,data:data3};
+if(data.mass !== undefined){
+let data4 = data.mass;
+if((typeof data4 !== "string") && (!((typeof data4 == "number") && (isFinite(data4))))){
+const err11 = {instancePath:instancePath+"/mass",schemaPath:"#/properties/mass/type",keyword:"type",params:{type: schema32.properties.mass.type},message:"must be string,number",schema:schema32.properties.mass.type,parentSchema:schema32.properties.mass,data:data4};
 if(vErrors === null){
 vErrors = [err11];
 }
@@ -449,10 +499,10 @@ vErrors.push(err11);
 errors++;
 }
 }
-if(data.duration !== undefined){
-let data4 = data.duration;
-if((typeof data4 !== "string") && (!((typeof data4 == "number") && (isFinite(data4))))){
-const err12 = {instancePath:instancePath+"/duration",schemaPath:"#/properties/duration/type",keyword:"type",params:{type: schema32.properties.duration.type},message:"must be string,number",schema:schema32.properties.duration.type,parentSchema:schema32.properties.duration,data:data4};
+if(data.endotherm !== undefined){
+let data5 = data.endotherm;
+if(!((data5 === "up") || (data5 === "down"))){
+const err12 = {instancePath:instancePath+"/endotherm",schemaPath:"#/properties/endotherm/enum",keyword:"enum",params:{allowedValues: schema32.properties.endotherm.enum},message:"must be equal to one of the allowed values",schema:schema32.properties.endotherm.enum,parentSchema:schema32.properties.endotherm,data:data5};
 if(vErrors === null){
 vErrors = [err12];
 }
@@ -462,10 +512,10 @@ vErrors.push(err12);
 errors++;
 }
 }
-if(data.base_pressure !== undefined){
-let data5 = data.base_pressure;
-if((typeof data5 !== "string") && (!((typeof data5 == "number") && (isFinite(data5))))){
-const err13 = {instancePath:instancePath+"/base_pressure",schemaPath:"#/properties/base_pressure/type",keyword:"type",params:{type: schema32.properties.base_pressure.type},message:"must be string,number",schema:schema32.properties.base_pressure.type,parentSchema:schema32.properties.base_pressure,data:data5};
+if(data.temperature_calibration !== undefined){
+let data6 = data.temperature_calibration;
+if((typeof data6 !== "string") && (!((typeof data6 == "number") && (isFinite(data6))))){
+const err13 = {instancePath:instancePath+"/temperature_calibration",schemaPath:"#/properties/temperature_calibration/type",keyword:"type",params:{type: schema32.properties.temperature_calibration.type},message:"must be string,number",schema:schema32.properties.temperature_calibration.type,parentSchema:schema32.properties.temperature_calibration,data:data6};
 if(vErrors === null){
 vErrors = [err13];
 }
@@ -475,10 +525,11 @@ vErrors.push(err13);
 errors++;
 }
 }
-if(data.substrate !== undefined){
-let data6 = data.substrate;
-if(typeof data6 !== "string"){
-const err14 = {instancePath:instancePath+"/substrate",schemaPath:"#/properties/substrate/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema32.properties.substrate.type,parentSchema:schema32.properties.substrate,data:data6};
+if(data.reference !== undefined){
+let data7 = data.reference;
+if(typeof data7 === "string"){
+if(!pattern4.test(data7)){
+const err14 = {instancePath:instancePath+"/reference",schemaPath:"#/properties/reference/pattern",keyword:"pattern",params:{pattern: "^[A-Za-z0-9][A-Za-z0-9._:-]*$"},message:"must match pattern \""+"^[A-Za-z0-9][A-Za-z0-9._:-]*$"+"\"",schema:"^[A-Za-z0-9][A-Za-z0-9._:-]*$",parentSchema:schema32.properties.reference,data:data7};
 if(vErrors === null){
 vErrors = [err14];
 }
@@ -488,10 +539,8 @@ vErrors.push(err14);
 errors++;
 }
 }
-if(data.source_temperature !== undefined){
-let data7 = data.source_temperature;
-if((typeof data7 !== "string") && (!((typeof data7 == "number") && (isFinite(data7))))){
-const err15 = {instancePath:instancePath+"/source_temperature",schemaPath:"#/properties/source_temperature/type",keyword:"type",params:{type: schema32.properties.source_temperature.type},message:"must be string,number",schema:schema32.properties.source_temperature.type,parentSchema:schema32.properties.source_temperature,data:data7};
+else {
+const err15 = {instancePath:instancePath+"/reference",schemaPath:"#/properties/reference/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema32.properties.reference.type,parentSchema:schema32.properties.reference,data:data7};
 if(vErrors === null){
 vErrors = [err15];
 }
@@ -501,10 +550,11 @@ vErrors.push(err15);
 errors++;
 }
 }
-if(data.sensor !== undefined){
-let data8 = data.sensor;
-if(typeof data8 !== "string"){
-const err16 = {instancePath:instancePath+"/sensor",schemaPath:"#/properties/sensor/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema32.properties.sensor.type,parentSchema:schema32.properties.sensor,data:data8};
+if(data.data !== undefined){
+let data8 = data.data;
+if(typeof data8 === "string"){
+if(func3(data8) < 1){
+const err16 = {instancePath:instancePath+"/data",schemaPath:"#/properties/data/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters",schema:1,parentSchema:schema32.properties.data,data:data8};
 if(vErrors === null){
 vErrors = [err16];
 }
@@ -514,10 +564,8 @@ vErrors.push(err16);
 errors++;
 }
 }
-if(data.date !== undefined){
-let data9 = data.date;
-if(typeof data9 !== "string"){
-const err17 = {instancePath:instancePath+"/date",schemaPath:"#/properties/date/type",keyword:"type",params:{type: schema32.properties.date.type},message:"must be string",schema:schema32.properties.date.type,parentSchema:schema32.properties.date,data:data9};
+else {
+const err17 = {instancePath:instancePath+"/data",schemaPath:"#/properties/data/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema32.properties.data.type,parentSchema:schema32.properties.data,data:data8};
 if(vErrors === null){
 vErrors = [err17];
 }
@@ -527,10 +575,12 @@ vErrors.push(err17);
 errors++;
 }
 }
-if(data.operator !== undefined){
-let data10 = data.operator;
-if(typeof data10 !== "string"){
-const err18 = {instancePath:instancePath+"/operator",schemaPath:"#/properties/operator/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema32.properties.operator.type,parentSchema:schema32.properties.operator,data:data10};
+if(data.columns !== undefined){
+let data9 = data.columns;
+if(data9 && typeof data9 == "object" && !Array.isArray(data9)){
+for(const key1 in data9){
+if(!(((key1 === "temperature") || (key1 === "heat_capacity")) || (key1 === "heat_flow"))){
+const err18 = {instancePath:instancePath+"/columns",schemaPath:"#/properties/columns/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key1},message:"must NOT have additional properties",schema:false,parentSchema:schema32.properties.columns,data:data9};
 if(vErrors === null){
 vErrors = [err18];
 }
@@ -540,10 +590,10 @@ vErrors.push(err18);
 errors++;
 }
 }
-if(data.chamber !== undefined){
-let data11 = data.chamber;
-if(typeof data11 !== "string"){
-const err19 = {instancePath:instancePath+"/chamber",schemaPath:"#/properties/chamber/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema32.properties.chamber.type,parentSchema:schema32.properties.chamber,data:data11};
+if(data9.temperature !== undefined){
+let data10 = data9.temperature;
+if(typeof data10 !== "string"){
+const err19 = {instancePath:instancePath+"/columns/temperature",schemaPath:"#/properties/columns/properties/temperature/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema32.properties.columns.properties.temperature.type,parentSchema:schema32.properties.columns.properties.temperature,data:data10};
 if(vErrors === null){
 vErrors = [err19];
 }
@@ -553,10 +603,10 @@ vErrors.push(err19);
 errors++;
 }
 }
-if(data.notes !== undefined){
-let data12 = data.notes;
-if(typeof data12 !== "string"){
-const err20 = {instancePath:instancePath+"/notes",schemaPath:"#/properties/notes/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema32.properties.notes.type,parentSchema:schema32.properties.notes,data:data12};
+if(data9.heat_capacity !== undefined){
+let data11 = data9.heat_capacity;
+if(typeof data11 !== "string"){
+const err20 = {instancePath:instancePath+"/columns/heat_capacity",schemaPath:"#/properties/columns/properties/heat_capacity/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema32.properties.columns.properties.heat_capacity.type,parentSchema:schema32.properties.columns.properties.heat_capacity,data:data11};
 if(vErrors === null){
 vErrors = [err20];
 }
@@ -566,9 +616,10 @@ vErrors.push(err20);
 errors++;
 }
 }
-}
-else {
-const err21 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object",schema:schema32.type,parentSchema:schema32,data};
+if(data9.heat_flow !== undefined){
+let data12 = data9.heat_flow;
+if(typeof data12 !== "string"){
+const err21 = {instancePath:instancePath+"/columns/heat_flow",schemaPath:"#/properties/columns/properties/heat_flow/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema32.properties.columns.properties.heat_flow.type,parentSchema:schema32.properties.columns.properties.heat_flow,data:data12};
 if(vErrors === null){
 vErrors = [err21];
 }
@@ -577,17 +628,226 @@ vErrors.push(err21);
 }
 errors++;
 }
+}
+}
+else {
+const err22 = {instancePath:instancePath+"/columns",schemaPath:"#/properties/columns/type",keyword:"type",params:{type: "object"},message:"must be object",schema:schema32.properties.columns.type,parentSchema:schema32.properties.columns,data:data9};
+if(vErrors === null){
+vErrors = [err22];
+}
+else {
+vErrors.push(err22);
+}
+errors++;
+}
+}
+if(data.windows !== undefined){
+let data13 = data.windows;
+if(data13 && typeof data13 == "object" && !Array.isArray(data13)){
+for(const key2 in data13){
+if(!((key2 === "glass") || (key2 === "liquid"))){
+const err23 = {instancePath:instancePath+"/windows",schemaPath:"#/properties/windows/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key2},message:"must NOT have additional properties",schema:false,parentSchema:schema32.properties.windows,data:data13};
+if(vErrors === null){
+vErrors = [err23];
+}
+else {
+vErrors.push(err23);
+}
+errors++;
+}
+}
+if(data13.glass !== undefined){
+let data14 = data13.glass;
+if(Array.isArray(data14)){
+if(data14.length > 2){
+const err24 = {instancePath:instancePath+"/windows/glass",schemaPath:"#/properties/windows/properties/glass/maxItems",keyword:"maxItems",params:{limit: 2},message:"must NOT have more than 2 items",schema:2,parentSchema:schema32.properties.windows.properties.glass,data:data14};
+if(vErrors === null){
+vErrors = [err24];
+}
+else {
+vErrors.push(err24);
+}
+errors++;
+}
+if(data14.length < 2){
+const err25 = {instancePath:instancePath+"/windows/glass",schemaPath:"#/properties/windows/properties/glass/minItems",keyword:"minItems",params:{limit: 2},message:"must NOT have fewer than 2 items",schema:2,parentSchema:schema32.properties.windows.properties.glass,data:data14};
+if(vErrors === null){
+vErrors = [err25];
+}
+else {
+vErrors.push(err25);
+}
+errors++;
+}
+const len0 = data14.length;
+if(len0 > 0){
+let data15 = data14[0];
+if((typeof data15 !== "string") && (!((typeof data15 == "number") && (isFinite(data15))))){
+const err26 = {instancePath:instancePath+"/windows/glass/0",schemaPath:"#/properties/windows/properties/glass/prefixItems/0/type",keyword:"type",params:{type: schema32.properties.windows.properties.glass.prefixItems[0].type},message:"must be string,number",schema:schema32.properties.windows.properties.glass.prefixItems[0].type,parentSchema:schema32.properties.windows.properties.glass.prefixItems[0],data:data15};
+if(vErrors === null){
+vErrors = [err26];
+}
+else {
+vErrors.push(err26);
+}
+errors++;
+}
+}
+if(len0 > 1){
+let data16 = data14[1];
+if((typeof data16 !== "string") && (!((typeof data16 == "number") && (isFinite(data16))))){
+const err27 = {instancePath:instancePath+"/windows/glass/1",schemaPath:"#/properties/windows/properties/glass/prefixItems/1/type",keyword:"type",params:{type: schema32.properties.windows.properties.glass.prefixItems[1].type},message:"must be string,number",schema:schema32.properties.windows.properties.glass.prefixItems[1].type,parentSchema:schema32.properties.windows.properties.glass.prefixItems[1],data:data16};
+if(vErrors === null){
+vErrors = [err27];
+}
+else {
+vErrors.push(err27);
+}
+errors++;
+}
+}
+const len1 = data14.length;
+if(!(len1 <= 2)){
+const err28 = {instancePath:instancePath+"/windows/glass",schemaPath:"#/properties/windows/properties/glass/items",keyword:"items",params:{limit: 2},message:"must NOT have more than 2 items",schema:false,parentSchema:schema32.properties.windows.properties.glass,data:data14};
+if(vErrors === null){
+vErrors = [err28];
+}
+else {
+vErrors.push(err28);
+}
+errors++;
+}
+}
+else {
+const err29 = {instancePath:instancePath+"/windows/glass",schemaPath:"#/properties/windows/properties/glass/type",keyword:"type",params:{type: "array"},message:"must be array",schema:schema32.properties.windows.properties.glass.type,parentSchema:schema32.properties.windows.properties.glass,data:data14};
+if(vErrors === null){
+vErrors = [err29];
+}
+else {
+vErrors.push(err29);
+}
+errors++;
+}
+}
+if(data13.liquid !== undefined){
+let data17 = data13.liquid;
+if(Array.isArray(data17)){
+if(data17.length > 2){
+const err30 = {instancePath:instancePath+"/windows/liquid",schemaPath:"#/properties/windows/properties/liquid/maxItems",keyword:"maxItems",params:{limit: 2},message:"must NOT have more than 2 items",schema:2,parentSchema:schema32.properties.windows.properties.liquid,data:data17};
+if(vErrors === null){
+vErrors = [err30];
+}
+else {
+vErrors.push(err30);
+}
+errors++;
+}
+if(data17.length < 2){
+const err31 = {instancePath:instancePath+"/windows/liquid",schemaPath:"#/properties/windows/properties/liquid/minItems",keyword:"minItems",params:{limit: 2},message:"must NOT have fewer than 2 items",schema:2,parentSchema:schema32.properties.windows.properties.liquid,data:data17};
+if(vErrors === null){
+vErrors = [err31];
+}
+else {
+vErrors.push(err31);
+}
+errors++;
+}
+const len2 = data17.length;
+if(len2 > 0){
+let data18 = data17[0];
+if((typeof data18 !== "string") && (!((typeof data18 == "number") && (isFinite(data18))))){
+const err32 = {instancePath:instancePath+"/windows/liquid/0",schemaPath:"#/properties/windows/properties/liquid/prefixItems/0/type",keyword:"type",params:{type: schema32.properties.windows.properties.liquid.prefixItems[0].type},message:"must be string,number",schema:schema32.properties.windows.properties.liquid.prefixItems[0].type,parentSchema:schema32.properties.windows.properties.liquid.prefixItems[0],data:data18};
+if(vErrors === null){
+vErrors = [err32];
+}
+else {
+vErrors.push(err32);
+}
+errors++;
+}
+}
+if(len2 > 1){
+let data19 = data17[1];
+if((typeof data19 !== "string") && (!((typeof data19 == "number") && (isFinite(data19))))){
+const err33 = {instancePath:instancePath+"/windows/liquid/1",schemaPath:"#/properties/windows/properties/liquid/prefixItems/1/type",keyword:"type",params:{type: schema32.properties.windows.properties.liquid.prefixItems[1].type},message:"must be string,number",schema:schema32.properties.windows.properties.liquid.prefixItems[1].type,parentSchema:schema32.properties.windows.properties.liquid.prefixItems[1],data:data19};
+if(vErrors === null){
+vErrors = [err33];
+}
+else {
+vErrors.push(err33);
+}
+errors++;
+}
+}
+const len3 = data17.length;
+if(!(len3 <= 2)){
+const err34 = {instancePath:instancePath+"/windows/liquid",schemaPath:"#/properties/windows/properties/liquid/items",keyword:"items",params:{limit: 2},message:"must NOT have more than 2 items",schema:false,parentSchema:schema32.properties.windows.properties.liquid,data:data17};
+if(vErrors === null){
+vErrors = [err34];
+}
+else {
+vErrors.push(err34);
+}
+errors++;
+}
+}
+else {
+const err35 = {instancePath:instancePath+"/windows/liquid",schemaPath:"#/properties/windows/properties/liquid/type",keyword:"type",params:{type: "array"},message:"must be array",schema:schema32.properties.windows.properties.liquid.type,parentSchema:schema32.properties.windows.properties.liquid,data:data17};
+if(vErrors === null){
+vErrors = [err35];
+}
+else {
+vErrors.push(err35);
+}
+errors++;
+}
+}
+}
+else {
+const err36 = {instancePath:instancePath+"/windows",schemaPath:"#/properties/windows/type",keyword:"type",params:{type: "object"},message:"must be object",schema:schema32.properties.windows.type,parentSchema:schema32.properties.windows,data:data13};
+if(vErrors === null){
+vErrors = [err36];
+}
+else {
+vErrors.push(err36);
+}
+errors++;
+}
+}
+if(data.notes !== undefined){
+let data20 = data.notes;
+if(typeof data20 !== "string"){
+const err37 = {instancePath:instancePath+"/notes",schemaPath:"#/properties/notes/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema32.properties.notes.type,parentSchema:schema32.properties.notes,data:data20};
+if(vErrors === null){
+vErrors = [err37];
+}
+else {
+vErrors.push(err37);
+}
+errors++;
+}
+}
+}
+else {
+const err38 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object",schema:schema32.type,parentSchema:schema32,data};
+if(vErrors === null){
+vErrors = [err38];
+}
+else {
+vErrors.push(err38);
+}
+errors++;
+}
 validate21.errors = vErrors;
 return errors === 0;
 }
 validate21.evaluated = {"props":true,"dynamicProps":false,"dynamicItems":false};
 
-export const ramp = validate22;
-const schema33 = {"$schema":"https://json-schema.org/draft/2020-12/schema","$id":"https://vitrine.invalid/schemas/ramp.schema.json","title":"Vitrine ramp block","description":"Thickness (or volume) against temperature while heating, cooling or both.","type":"object","properties":{"film":{"type":"string","pattern":"^[A-Za-z0-9][A-Za-z0-9._:-]*$","description":"id of the deposition block"},"rate":{"type":["string","number"],"quantityOf":"heating_rate","quantityExclusiveMinimum":0,"description":"nominal heating or cooling rate"},"direction":{"enum":["heating","cooling","cycle"],"description":"inferred from the data when absent"},"data":{"type":"string","minLength":1,"description":"path of a CSV/TSV data file, relative to this notebook file, inside the notebook folder"},"columns":{"type":"object","description":"which table header holds each role","properties":{"time":{"type":"string"},"temperature":{"type":"string"},"thickness":{"type":"string"},"volume":{"type":"string"}},"additionalProperties":false},"reference_temperature":{"type":["string","number"],"quantityOf":"temperature","description":"where the density gain is evaluated (default: the substrate temperature)"},"windows":{"type":"object","description":"temperature ranges for the line fits","properties":{"glass":{"type":"array","prefixItems":[{"type":["string","number"],"quantityOf":"temperature","description":"lower end"},{"type":["string","number"],"quantityOf":"temperature","description":"upper end"}],"items":false,"minItems":2,"maxItems":2,"description":"[low, high] temperature range"},"liquid":{"type":"array","prefixItems":[{"type":["string","number"],"quantityOf":"temperature","description":"lower end"},{"type":["string","number"],"quantityOf":"temperature","description":"upper end"}],"items":false,"minItems":2,"maxItems":2,"description":"[low, high] temperature range"},"deposited":{"type":"array","prefixItems":[{"type":["string","number"],"quantityOf":"temperature","description":"lower end"},{"type":["string","number"],"quantityOf":"temperature","description":"upper end"}],"items":false,"minItems":2,"maxItems":2,"description":"[low, high] temperature range"}},"additionalProperties":false},"temperature_calibration":{"type":["string","number"],"quantityOf":"temperature_interval","description":"standard uncertainty of the stage thermometer, entered in the budget of every temperature figure (default 0.5 K)"},"instrument":{"type":"string","description":"instrument type"},"notes":{"type":"string","description":"free text"}},"required":["film","rate"],"additionalProperties":false};
-const func4 = ucs2length;
+export const isotherm = validate22;
+const schema33 = {"$schema":"https://json-schema.org/draft/2020-12/schema","$id":"https://vitrine.invalid/schemas/isotherm.schema.json","title":"Vitrine isotherm block","description":"Thickness against time during an isothermal hold.","type":"object","properties":{"film":{"type":"string","pattern":"^[A-Za-z0-9][A-Za-z0-9._:-]*$","description":"id of the deposition block"},"temperature":{"type":["string","number"],"quantityOf":"temperature","description":"hold temperature"},"temperature_calibration":{"type":["string","number"],"quantityOf":"temperature_interval","description":"standard uncertainty of the hold temperature's thermometer, entered in the budget of the relaxation time and the stability ratio (default 0.5 K)"},"fronts":{"enum":[1,2],"description":"1: front from the free surface; 2: also from the substrate"},"data":{"type":"string","minLength":1,"description":"path of a CSV/TSV data file, relative to this notebook file, inside the notebook folder"},"columns":{"type":"object","description":"which table header holds each role","properties":{"time":{"type":"string"},"temperature":{"type":"string"},"thickness":{"type":"string"}},"additionalProperties":false},"notes":{"type":"string","description":"free text"}},"required":["film","temperature"],"additionalProperties":false};
 
 function validate22(data, {instancePath="", parentData, parentDataProperty, rootData=data, dynamicAnchors={}}={}){
-/*# sourceURL="https://vitrine.invalid/schemas/ramp.schema.json" */;
+/*# sourceURL="https://vitrine.invalid/schemas/isotherm.schema.json" */;
 let vErrors = null;
 let errors = 0;
 const evaluated0 = validate22.evaluated;
@@ -608,8 +868,8 @@ vErrors.push(err0);
 }
 errors++;
 }
-if(data.rate === undefined){
-const err1 = {instancePath,schemaPath:"#/required",keyword:"required",params:{missingProperty: "rate"},message:"must have required property '"+"rate"+"'",schema:schema33.required,parentSchema:schema33,data};
+if(data.temperature === undefined){
+const err1 = {instancePath,schemaPath:"#/required",keyword:"required",params:{missingProperty: "temperature"},message:"must have required property '"+"temperature"+"'",schema:schema33.required,parentSchema:schema33,data};
 if(vErrors === null){
 vErrors = [err1];
 }
@@ -619,7 +879,7 @@ vErrors.push(err1);
 errors++;
 }
 for(const key0 in data){
-if(!(func1.call(schema33.properties, key0))){
+if(!(((((((key0 === "film") || (key0 === "temperature")) || (key0 === "temperature_calibration")) || (key0 === "fronts")) || (key0 === "data")) || (key0 === "columns")) || (key0 === "notes"))){
 const err2 = {instancePath,schemaPath:"#/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key0},message:"must NOT have additional properties",schema:false,parentSchema:schema33,data};
 if(vErrors === null){
 vErrors = [err2];
@@ -655,526 +915,10 @@ vErrors.push(err4);
 errors++;
 }
 }
-if(data.rate !== undefined){
-let data1 = data.rate;
-if((typeof data1 !== "string") && (!((typeof data1 == "number") && (isFinite(data1))))){
-const err5 = {instancePath:instancePath+"/rate",schemaPath:"#/properties/rate/type",keyword:"type",params:{type: schema33.properties.rate.type},message:"must be string,number",schema:schema33.properties.rate.type,parentSchema:schema33.properties.rate,data:data1};
-if(vErrors === null){
-vErrors = [err5];
-}
-else {
-vErrors.push(err5);
-}
-errors++;
-}
-}
-if(data.direction !== undefined){
-let data2 = data.direction;
-if(!(((data2 === "heating") || (data2 === "cooling")) || (data2 === "cycle"))){
-const err6 = {instancePath:instancePath+"/direction",schemaPath:"#/properties/direction/enum",keyword:"enum",params:{allowedValues: schema33.properties.direction.enum},message:"must be equal to one of the allowed values",schema:schema33.properties.direction.enum,parentSchema:schema33.properties.direction,data:data2};
-if(vErrors === null){
-vErrors = [err6];
-}
-else {
-vErrors.push(err6);
-}
-errors++;
-}
-}
-if(data.data !== undefined){
-let data3 = data.data;
-if(typeof data3 === "string"){
-if(func4(data3) < 1){
-const err7 = {instancePath:instancePath+"/data",schemaPath:"#/properties/data/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters",schema:1,parentSchema:schema33.properties.data,data:data3};
-if(vErrors === null){
-vErrors = [err7];
-}
-else {
-vErrors.push(err7);
-}
-errors++;
-}
-}
-else {
-const err8 = {instancePath:instancePath+"/data",schemaPath:"#/properties/data/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema33.properties.data.type,parentSchema:schema33.properties.data,data:data3};
-if(vErrors === null){
-vErrors = [err8];
-}
-else {
-vErrors.push(err8);
-}
-errors++;
-}
-}
-if(data.columns !== undefined){
-let data4 = data.columns;
-if(data4 && typeof data4 == "object" && !Array.isArray(data4)){
-for(const key1 in data4){
-if(!((((key1 === "time") || (key1 === "temperature")) || (key1 === "thickness")) || (key1 === "volume"))){
-const err9 = {instancePath:instancePath+"/columns",schemaPath:"#/properties/columns/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key1},message:"must NOT have additional properties",schema:false,parentSchema:schema33.properties.columns,data:data4};
-if(vErrors === null){
-vErrors = [err9];
-}
-else {
-vErrors.push(err9);
-}
-errors++;
-}
-}
-if(data4.time !== undefined){
-let data5 = data4.time;
-if(typeof data5 !== "string"){
-const err10 = {instancePath:instancePath+"/columns/time",schemaPath:"#/properties/columns/properties/time/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema33.properties.columns.properties.time.type,parentSchema:schema33.properties.columns.properties.time,data:data5};
-if(vErrors === null){
-vErrors = [err10];
-}
-else {
-vErrors.push(err10);
-}
-errors++;
-}
-}
-if(data4.temperature !== undefined){
-let data6 = data4.temperature;
-if(typeof data6 !== "string"){
-const err11 = {instancePath:instancePath+"/columns/temperature",schemaPath:"#/properties/columns/properties/temperature/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema33.properties.columns.properties.temperature.type,parentSchema:schema33.properties.columns.properties.temperature,data:data6};
-if(vErrors === null){
-vErrors = [err11];
-}
-else {
-vErrors.push(err11);
-}
-errors++;
-}
-}
-if(data4.thickness !== undefined){
-let data7 = data4.thickness;
-if(typeof data7 !== "string"){
-const err12 = {instancePath:instancePath+"/columns/thickness",schemaPath:"#/properties/columns/properties/thickness/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema33.properties.columns.properties.thickness.type,parentSchema:schema33.properties.columns.properties.thickness,data:data7};
-if(vErrors === null){
-vErrors = [err12];
-}
-else {
-vErrors.push(err12);
-}
-errors++;
-}
-}
-if(data4.volume !== undefined){
-let data8 = data4.volume;
-if(typeof data8 !== "string"){
-const err13 = {instancePath:instancePath+"/columns/volume",schemaPath:"#/properties/columns/properties/volume/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema33.properties.columns.properties.volume.type,parentSchema:schema33.properties.columns.properties.volume,data:data8};
-if(vErrors === null){
-vErrors = [err13];
-}
-else {
-vErrors.push(err13);
-}
-errors++;
-}
-}
-}
-else {
-const err14 = {instancePath:instancePath+"/columns",schemaPath:"#/properties/columns/type",keyword:"type",params:{type: "object"},message:"must be object",schema:schema33.properties.columns.type,parentSchema:schema33.properties.columns,data:data4};
-if(vErrors === null){
-vErrors = [err14];
-}
-else {
-vErrors.push(err14);
-}
-errors++;
-}
-}
-if(data.reference_temperature !== undefined){
-let data9 = data.reference_temperature;
-if((typeof data9 !== "string") && (!((typeof data9 == "number") && (isFinite(data9))))){
-const err15 = {instancePath:instancePath+"/reference_temperature",schemaPath:"#/properties/reference_temperature/type",keyword:"type",params:{type: schema33.properties.reference_temperature.type},message:"must be string,number",schema:schema33.properties.reference_temperature.type,parentSchema:schema33.properties.reference_temperature,data:data9};
-if(vErrors === null){
-vErrors = [err15];
-}
-else {
-vErrors.push(err15);
-}
-errors++;
-}
-}
-if(data.windows !== undefined){
-let data10 = data.windows;
-if(data10 && typeof data10 == "object" && !Array.isArray(data10)){
-for(const key2 in data10){
-if(!(((key2 === "glass") || (key2 === "liquid")) || (key2 === "deposited"))){
-const err16 = {instancePath:instancePath+"/windows",schemaPath:"#/properties/windows/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key2},message:"must NOT have additional properties",schema:false,parentSchema:schema33.properties.windows,data:data10};
-if(vErrors === null){
-vErrors = [err16];
-}
-else {
-vErrors.push(err16);
-}
-errors++;
-}
-}
-if(data10.glass !== undefined){
-let data11 = data10.glass;
-if(Array.isArray(data11)){
-if(data11.length > 2){
-const err17 = {instancePath:instancePath+"/windows/glass",schemaPath:"#/properties/windows/properties/glass/maxItems",keyword:"maxItems",params:{limit: 2},message:"must NOT have more than 2 items",schema:2,parentSchema:schema33.properties.windows.properties.glass,data:data11};
-if(vErrors === null){
-vErrors = [err17];
-}
-else {
-vErrors.push(err17);
-}
-errors++;
-}
-if(data11.length < 2){
-const err18 = {instancePath:instancePath+"/windows/glass",schemaPath:"#/properties/windows/properties/glass/minItems",keyword:"minItems",params:{limit: 2},message:"must NOT have fewer than 2 items",schema:2,parentSchema:schema33.properties.windows.properties.glass,data:data11};
-if(vErrors === null){
-vErrors = [err18];
-}
-else {
-vErrors.push(err18);
-}
-errors++;
-}
-const len0 = data11.length;
-if(len0 > 0){
-let data12 = data11[0];
-if((typeof data12 !== "string") && (!((typeof data12 == "number") && (isFinite(data12))))){
-const err19 = {instancePath:instancePath+"/windows/glass/0",schemaPath:"#/properties/windows/properties/glass/prefixItems/0/type",keyword:"type",params:{type: schema33.properties.windows.properties.glass.prefixItems[0].type},message:"must be string,number",schema:schema33.properties.windows.properties.glass.prefixItems[0].type,parentSchema:schema33.properties.windows.properties.glass.prefixItems[0],data:data12};
-if(vErrors === null){
-vErrors = [err19];
-}
-else {
-vErrors.push(err19);
-}
-errors++;
-}
-}
-if(len0 > 1){
-let data13 = data11[1];
-if((typeof data13 !== "string") && (!((typeof data13 == "number") && (isFinite(data13))))){
-const err20 = {instancePath:instancePath+"/windows/glass/1",schemaPath:"#/properties/windows/properties/glass/prefixItems/1/type",keyword:"type",params:{type: schema33.properties.windows.properties.glass.prefixItems[1].type},message:"must be string,number",schema:schema33.properties.windows.properties.glass.prefixItems[1].type,parentSchema:schema33.properties.windows.properties.glass.prefixItems[1],data:data13};
-if(vErrors === null){
-vErrors = [err20];
-}
-else {
-vErrors.push(err20);
-}
-errors++;
-}
-}
-const len1 = data11.length;
-if(!(len1 <= 2)){
-const err21 = {instancePath:instancePath+"/windows/glass",schemaPath:"#/properties/windows/properties/glass/items",keyword:"items",params:{limit: 2},message:"must NOT have more than 2 items",schema:false,parentSchema:schema33.properties.windows.properties.glass,data:data11};
-if(vErrors === null){
-vErrors = [err21];
-}
-else {
-vErrors.push(err21);
-}
-errors++;
-}
-}
-else {
-const err22 = {instancePath:instancePath+"/windows/glass",schemaPath:"#/properties/windows/properties/glass/type",keyword:"type",params:{type: "array"},message:"must be array",schema:schema33.properties.windows.properties.glass.type,parentSchema:schema33.properties.windows.properties.glass,data:data11};
-if(vErrors === null){
-vErrors = [err22];
-}
-else {
-vErrors.push(err22);
-}
-errors++;
-}
-}
-if(data10.liquid !== undefined){
-let data14 = data10.liquid;
-if(Array.isArray(data14)){
-if(data14.length > 2){
-const err23 = {instancePath:instancePath+"/windows/liquid",schemaPath:"#/properties/windows/properties/liquid/maxItems",keyword:"maxItems",params:{limit: 2},message:"must NOT have more than 2 items",schema:2,parentSchema:schema33.properties.windows.properties.liquid,data:data14};
-if(vErrors === null){
-vErrors = [err23];
-}
-else {
-vErrors.push(err23);
-}
-errors++;
-}
-if(data14.length < 2){
-const err24 = {instancePath:instancePath+"/windows/liquid",schemaPath:"#/properties/windows/properties/liquid/minItems",keyword:"minItems",params:{limit: 2},message:"must NOT have fewer than 2 items",schema:2,parentSchema:schema33.properties.windows.properties.liquid,data:data14};
-if(vErrors === null){
-vErrors = [err24];
-}
-else {
-vErrors.push(err24);
-}
-errors++;
-}
-const len2 = data14.length;
-if(len2 > 0){
-let data15 = data14[0];
-if((typeof data15 !== "string") && (!((typeof data15 == "number") && (isFinite(data15))))){
-const err25 = {instancePath:instancePath+"/windows/liquid/0",schemaPath:"#/properties/windows/properties/liquid/prefixItems/0/type",keyword:"type",params:{type: schema33.properties.windows.properties.liquid.prefixItems[0].type},message:"must be string,number",schema:schema33.properties.windows.properties.liquid.prefixItems[0].type,parentSchema:schema33.properties.windows.properties.liquid.prefixItems[0],data:data15};
-if(vErrors === null){
-vErrors = [err25];
-}
-else {
-vErrors.push(err25);
-}
-errors++;
-}
-}
-if(len2 > 1){
-let data16 = data14[1];
-if((typeof data16 !== "string") && (!((typeof data16 == "number") && (isFinite(data16))))){
-const err26 = {instancePath:instancePath+"/windows/liquid/1",schemaPath:"#/properties/windows/properties/liquid/prefixItems/1/type",keyword:"type",params:{type: schema33.properties.windows.properties.liquid.prefixItems[1].type},message:"must be string,number",schema:schema33.properties.windows.properties.liquid.prefixItems[1].type,parentSchema:schema33.properties.windows.properties.liquid.prefixItems[1],data:data16};
-if(vErrors === null){
-vErrors = [err26];
-}
-else {
-vErrors.push(err26);
-}
-errors++;
-}
-}
-const len3 = data14.length;
-if(!(len3 <= 2)){
-const err27 = {instancePath:instancePath+"/windows/liquid",schemaPath:"#/properties/windows/properties/liquid/items",keyword:"items",params:{limit: 2},message:"must NOT have more than 2 items",schema:false,parentSchema:schema33.properties.windows.properties.liquid,data:data14};
-if(vErrors === null){
-vErrors = [err27];
-}
-else {
-vErrors.push(err27);
-}
-errors++;
-}
-}
-else {
-const err28 = {instancePath:instancePath+"/windows/liquid",schemaPath:"#/properties/windows/properties/liquid/type",keyword:"type",params:{type: "array"},message:"must be array",schema:schema33.properties.windows.properties.liquid.type,parentSchema:schema33.properties.windows.properties.liquid,data:data14};
-if(vErrors === null){
-vErrors = [err28];
-}
-else {
-vErrors.push(err28);
-}
-errors++;
-}
-}
-if(data10.deposited !== undefined){
-let data17 = data10.deposited;
-if(Array.isArray(data17)){
-if(data17.length > 2){
-const err29 = {instancePath:instancePath+"/windows/deposited",schemaPath:"#/properties/windows/properties/deposited/maxItems",keyword:"maxItems",params:{limit: 2},message:"must NOT have more than 2 items",schema:2,parentSchema:schema33.properties.windows.properties.deposited,data:data17};
-if(vErrors === null){
-vErrors = [err29];
-}
-else {
-vErrors.push(err29);
-}
-errors++;
-}
-if(data17.length < 2){
-const err30 = {instancePath:instancePath+"/windows/deposited",schemaPath:"#/properties/windows/properties/deposited/minItems",keyword:"minItems",params:{limit: 2},message:"must NOT have fewer than 2 items",schema:2,parentSchema:schema33.properties.windows.properties.deposited,data:data17};
-if(vErrors === null){
-vErrors = [err30];
-}
-else {
-vErrors.push(err30);
-}
-errors++;
-}
-const len4 = data17.length;
-if(len4 > 0){
-let data18 = data17[0];
-if((typeof data18 !== "string") && (!((typeof data18 == "number") && (isFinite(data18))))){
-const err31 = {instancePath:instancePath+"/windows/deposited/0",schemaPath:"#/properties/windows/properties/deposited/prefixItems/0/type",keyword:"type",params:{type: schema33.properties.windows.properties.deposited.prefixItems[0].type},message:"must be string,number",schema:schema33.properties.windows.properties.deposited.prefixItems[0].type,parentSchema:schema33.properties.windows.properties.deposited.prefixItems[0],data:data18};
-if(vErrors === null){
-vErrors = [err31];
-}
-else {
-vErrors.push(err31);
-}
-errors++;
-}
-}
-if(len4 > 1){
-let data19 = data17[1];
-if((typeof data19 !== "string") && (!((typeof data19 == "number") && (isFinite(data19))))){
-const err32 = {instancePath:instancePath+"/windows/deposited/1",schemaPath:"#/properties/windows/properties/deposited/prefixItems/1/type",keyword:"type",params:{type: schema33.properties.windows.properties.deposited.prefixItems[1].type},message:"must be string,number",schema:schema33.properties.windows.properties.deposited.prefixItems[1].type,parentSchema:schema33.properties.windows.properties.deposited.prefixItems[1],data:data19};
-if(vErrors === null){
-vErrors = [err32];
-}
-else {
-vErrors.push(err32);
-}
-errors++;
-}
-}
-const len5 = data17.length;
-if(!(len5 <= 2)){
-const err33 = {instancePath:instancePath+"/windows/deposited",schemaPath:"#/properties/windows/properties/deposited/items",keyword:"items",params:{limit: 2},message:"must NOT have more than 2 items",schema:false,parentSchema:schema33.properties.windows.properties.deposited,data:data17};
-if(vErrors === null){
-vErrors = [err33];
-}
-else {
-vErrors.push(err33);
-}
-errors++;
-}
-}
-else {
-const err34 = {instancePath:instancePath+"/windows/deposited",schemaPath:"#/properties/windows/properties/deposited/type",keyword:"type",params:{type: "array"},message:"must be array",schema:schema33.properties.windows.properties.deposited.type,parentSchema:schema33.properties.windows.properties.deposited,data:data17};
-if(vErrors === null){
-vErrors = [err34];
-}
-else {
-vErrors.push(err34);
-}
-errors++;
-}
-}
-}
-else {
-const err35 = {instancePath:instancePath+"/windows",schemaPath:"#/properties/windows/type",keyword:"type",params:{type: "object"},message:"must be object",schema:schema33.properties.windows.type,parentSchema:schema33.properties.windows,data:data10};
-if(vErrors === null){
-vErrors = [err35];
-}
-else {
-vErrors.push(err35);
-}
-errors++;
-}
-}
-if(data.temperature_calibration !== undefined){
-let data20 = data.temperature_calibration;
-if((typeof data20 !== "string") && (!((typeof data20 == "number") && (isFinite(data20))))){
-const err36 = {instancePath:instancePath+"/temperature_calibration",schemaPath:"#/properties/temperature_calibration/type",keyword:"type",params:{type: schema33.properties.temperature_calibration.type},message:"must be string,number",schema:schema33.properties.temperature_calibration.type,parentSchema:schema33.properties.temperature_calibration,data:data20};
-if(vErrors === null){
-vErrors = [err36];
-}
-else {
-vErrors.push(err36);
-}
-errors++;
-}
-}
-if(data.instrument !== undefined){
-let data21 = data.instrument;
-if(typeof data21 !== "string"){
-const err37 = {instancePath:instancePath+"/instrument",schemaPath:"#/properties/instrument/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema33.properties.instrument.type,parentSchema:schema33.properties.instrument,data:data21};
-if(vErrors === null){
-vErrors = [err37];
-}
-else {
-vErrors.push(err37);
-}
-errors++;
-}
-}
-if(data.notes !== undefined){
-let data22 = data.notes;
-if(typeof data22 !== "string"){
-const err38 = {instancePath:instancePath+"/notes",schemaPath:"#/properties/notes/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema33.properties.notes.type,parentSchema:schema33.properties.notes,data:data22};
-if(vErrors === null){
-vErrors = [err38];
-}
-else {
-vErrors.push(err38);
-}
-errors++;
-}
-}
-}
-else {
-const err39 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object",schema:schema33.type,parentSchema:schema33,data};
-if(vErrors === null){
-vErrors = [err39];
-}
-else {
-vErrors.push(err39);
-}
-errors++;
-}
-validate22.errors = vErrors;
-return errors === 0;
-}
-validate22.evaluated = {"props":true,"dynamicProps":false,"dynamicItems":false};
-
-export const isotherm = validate23;
-const schema34 = {"$schema":"https://json-schema.org/draft/2020-12/schema","$id":"https://vitrine.invalid/schemas/isotherm.schema.json","title":"Vitrine isotherm block","description":"Thickness against time during an isothermal hold.","type":"object","properties":{"film":{"type":"string","pattern":"^[A-Za-z0-9][A-Za-z0-9._:-]*$","description":"id of the deposition block"},"temperature":{"type":["string","number"],"quantityOf":"temperature","description":"hold temperature"},"temperature_calibration":{"type":["string","number"],"quantityOf":"temperature_interval","description":"standard uncertainty of the hold temperature's thermometer, entered in the budget of the relaxation time and the stability ratio (default 0.5 K)"},"fronts":{"enum":[1,2],"description":"1: front from the free surface; 2: also from the substrate"},"data":{"type":"string","minLength":1,"description":"path of a CSV/TSV data file, relative to this notebook file, inside the notebook folder"},"columns":{"type":"object","description":"which table header holds each role","properties":{"time":{"type":"string"},"temperature":{"type":"string"},"thickness":{"type":"string"}},"additionalProperties":false},"notes":{"type":"string","description":"free text"}},"required":["film","temperature"],"additionalProperties":false};
-
-function validate23(data, {instancePath="", parentData, parentDataProperty, rootData=data, dynamicAnchors={}}={}){
-/*# sourceURL="https://vitrine.invalid/schemas/isotherm.schema.json" */;
-let vErrors = null;
-let errors = 0;
-const evaluated0 = validate23.evaluated;
-if(evaluated0.dynamicProps){
-evaluated0.props = undefined;
-}
-if(evaluated0.dynamicItems){
-evaluated0.items = undefined;
-}
-if(data && typeof data == "object" && !Array.isArray(data)){
-if(data.film === undefined){
-const err0 = {instancePath,schemaPath:"#/required",keyword:"required",params:{missingProperty: "film"},message:"must have required property '"+"film"+"'",schema:schema34.required,parentSchema:schema34,data};
-if(vErrors === null){
-vErrors = [err0];
-}
-else {
-vErrors.push(err0);
-}
-errors++;
-}
-if(data.temperature === undefined){
-const err1 = {instancePath,schemaPath:"#/required",keyword:"required",params:{missingProperty: "temperature"},message:"must have required property '"+"temperature"+"'",schema:schema34.required,parentSchema:schema34,data};
-if(vErrors === null){
-vErrors = [err1];
-}
-else {
-vErrors.push(err1);
-}
-errors++;
-}
-for(const key0 in data){
-if(!(((((((key0 === "film") || (key0 === "temperature")) || (key0 === "temperature_calibration")) || (key0 === "fronts")) || (key0 === "data")) || (key0 === "columns")) || (key0 === "notes"))){
-const err2 = {instancePath,schemaPath:"#/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key0},message:"must NOT have additional properties",schema:false,parentSchema:schema34,data};
-if(vErrors === null){
-vErrors = [err2];
-}
-else {
-vErrors.push(err2);
-}
-errors++;
-}
-}
-if(data.film !== undefined){
-let data0 = data.film;
-if(typeof data0 === "string"){
-if(!pattern4.test(data0)){
-const err3 = {instancePath:instancePath+"/film",schemaPath:"#/properties/film/pattern",keyword:"pattern",params:{pattern: "^[A-Za-z0-9][A-Za-z0-9._:-]*$"},message:"must match pattern \""+"^[A-Za-z0-9][A-Za-z0-9._:-]*$"+"\"",schema:"^[A-Za-z0-9][A-Za-z0-9._:-]*$",parentSchema:schema34.properties.film,data:data0};
-if(vErrors === null){
-vErrors = [err3];
-}
-else {
-vErrors.push(err3);
-}
-errors++;
-}
-}
-else {
-const err4 = {instancePath:instancePath+"/film",schemaPath:"#/properties/film/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema34.properties.film.type,parentSchema:schema34.properties.film,data:data0};
-if(vErrors === null){
-vErrors = [err4];
-}
-else {
-vErrors.push(err4);
-}
-errors++;
-}
-}
 if(data.temperature !== undefined){
 let data1 = data.temperature;
 if((typeof data1 !== "string") && (!((typeof data1 == "number") && (isFinite(data1))))){
-const err5 = {instancePath:instancePath+"/temperature",schemaPath:"#/properties/temperature/type",keyword:"type",params:{type: schema34.properties.temperature.type},message:"must be string,number",schema:schema34.properties.temperature.type,parentSchema:schema34.properties.temperature,data:data1};
+const err5 = {instancePath:instancePath+"/temperature",schemaPath:"#/properties/temperature/type",keyword:"type",params:{type: schema33.properties.temperature.type},message:"must be string,number",schema:schema33.properties.temperature.type,parentSchema:schema33.properties.temperature,data:data1};
 if(vErrors === null){
 vErrors = [err5];
 }
@@ -1187,7 +931,7 @@ errors++;
 if(data.temperature_calibration !== undefined){
 let data2 = data.temperature_calibration;
 if((typeof data2 !== "string") && (!((typeof data2 == "number") && (isFinite(data2))))){
-const err6 = {instancePath:instancePath+"/temperature_calibration",schemaPath:"#/properties/temperature_calibration/type",keyword:"type",params:{type: schema34.properties.temperature_calibration.type},message:"must be string,number",schema:schema34.properties.temperature_calibration.type,parentSchema:schema34.properties.temperature_calibration,data:data2};
+const err6 = {instancePath:instancePath+"/temperature_calibration",schemaPath:"#/properties/temperature_calibration/type",keyword:"type",params:{type: schema33.properties.temperature_calibration.type},message:"must be string,number",schema:schema33.properties.temperature_calibration.type,parentSchema:schema33.properties.temperature_calibration,data:data2};
 if(vErrors === null){
 vErrors = [err6];
 }
@@ -1200,7 +944,7 @@ errors++;
 if(data.fronts !== undefined){
 let data3 = data.fronts;
 if(!((data3 === 1) || (data3 === 2))){
-const err7 = {instancePath:instancePath+"/fronts",schemaPath:"#/properties/fronts/enum",keyword:"enum",params:{allowedValues: schema34.properties.fronts.enum},message:"must be equal to one of the allowed values",schema:schema34.properties.fronts.enum,parentSchema:schema34.properties.fronts,data:data3};
+const err7 = {instancePath:instancePath+"/fronts",schemaPath:"#/properties/fronts/enum",keyword:"enum",params:{allowedValues: schema33.properties.fronts.enum},message:"must be equal to one of the allowed values",schema:schema33.properties.fronts.enum,parentSchema:schema33.properties.fronts,data:data3};
 if(vErrors === null){
 vErrors = [err7];
 }
@@ -1213,8 +957,8 @@ errors++;
 if(data.data !== undefined){
 let data4 = data.data;
 if(typeof data4 === "string"){
-if(func4(data4) < 1){
-const err8 = {instancePath:instancePath+"/data",schemaPath:"#/properties/data/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters",schema:1,parentSchema:schema34.properties.data,data:data4};
+if(func3(data4) < 1){
+const err8 = {instancePath:instancePath+"/data",schemaPath:"#/properties/data/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters",schema:1,parentSchema:schema33.properties.data,data:data4};
 if(vErrors === null){
 vErrors = [err8];
 }
@@ -1225,7 +969,7 @@ errors++;
 }
 }
 else {
-const err9 = {instancePath:instancePath+"/data",schemaPath:"#/properties/data/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema34.properties.data.type,parentSchema:schema34.properties.data,data:data4};
+const err9 = {instancePath:instancePath+"/data",schemaPath:"#/properties/data/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema33.properties.data.type,parentSchema:schema33.properties.data,data:data4};
 if(vErrors === null){
 vErrors = [err9];
 }
@@ -1240,7 +984,7 @@ let data5 = data.columns;
 if(data5 && typeof data5 == "object" && !Array.isArray(data5)){
 for(const key1 in data5){
 if(!(((key1 === "time") || (key1 === "temperature")) || (key1 === "thickness"))){
-const err10 = {instancePath:instancePath+"/columns",schemaPath:"#/properties/columns/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key1},message:"must NOT have additional properties",schema:false,parentSchema:schema34.properties.columns,data:data5};
+const err10 = {instancePath:instancePath+"/columns",schemaPath:"#/properties/columns/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key1},message:"must NOT have additional properties",schema:false,parentSchema:schema33.properties.columns,data:data5};
 if(vErrors === null){
 vErrors = [err10];
 }
@@ -1253,7 +997,7 @@ errors++;
 if(data5.time !== undefined){
 let data6 = data5.time;
 if(typeof data6 !== "string"){
-const err11 = {instancePath:instancePath+"/columns/time",schemaPath:"#/properties/columns/properties/time/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema34.properties.columns.properties.time.type,parentSchema:schema34.properties.columns.properties.time,data:data6};
+const err11 = {instancePath:instancePath+"/columns/time",schemaPath:"#/properties/columns/properties/time/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema33.properties.columns.properties.time.type,parentSchema:schema33.properties.columns.properties.time,data:data6};
 if(vErrors === null){
 vErrors = [err11];
 }
@@ -1266,7 +1010,7 @@ errors++;
 if(data5.temperature !== undefined){
 let data7 = data5.temperature;
 if(typeof data7 !== "string"){
-const err12 = {instancePath:instancePath+"/columns/temperature",schemaPath:"#/properties/columns/properties/temperature/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema34.properties.columns.properties.temperature.type,parentSchema:schema34.properties.columns.properties.temperature,data:data7};
+const err12 = {instancePath:instancePath+"/columns/temperature",schemaPath:"#/properties/columns/properties/temperature/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema33.properties.columns.properties.temperature.type,parentSchema:schema33.properties.columns.properties.temperature,data:data7};
 if(vErrors === null){
 vErrors = [err12];
 }
@@ -1279,7 +1023,7 @@ errors++;
 if(data5.thickness !== undefined){
 let data8 = data5.thickness;
 if(typeof data8 !== "string"){
-const err13 = {instancePath:instancePath+"/columns/thickness",schemaPath:"#/properties/columns/properties/thickness/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema34.properties.columns.properties.thickness.type,parentSchema:schema34.properties.columns.properties.thickness,data:data8};
+const err13 = {instancePath:instancePath+"/columns/thickness",schemaPath:"#/properties/columns/properties/thickness/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema33.properties.columns.properties.thickness.type,parentSchema:schema33.properties.columns.properties.thickness,data:data8};
 if(vErrors === null){
 vErrors = [err13];
 }
@@ -1291,7 +1035,7 @@ errors++;
 }
 }
 else {
-const err14 = {instancePath:instancePath+"/columns",schemaPath:"#/properties/columns/type",keyword:"type",params:{type: "object"},message:"must be object",schema:schema34.properties.columns.type,parentSchema:schema34.properties.columns,data:data5};
+const err14 = {instancePath:instancePath+"/columns",schemaPath:"#/properties/columns/type",keyword:"type",params:{type: "object"},message:"must be object",schema:schema33.properties.columns.type,parentSchema:schema33.properties.columns,data:data5};
 if(vErrors === null){
 vErrors = [err14];
 }
@@ -1304,7 +1048,7 @@ errors++;
 if(data.notes !== undefined){
 let data9 = data.notes;
 if(typeof data9 !== "string"){
-const err15 = {instancePath:instancePath+"/notes",schemaPath:"#/properties/notes/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema34.properties.notes.type,parentSchema:schema34.properties.notes,data:data9};
+const err15 = {instancePath:instancePath+"/notes",schemaPath:"#/properties/notes/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema33.properties.notes.type,parentSchema:schema33.properties.notes,data:data9};
 if(vErrors === null){
 vErrors = [err15];
 }
@@ -1316,7 +1060,7 @@ errors++;
 }
 }
 else {
-const err16 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object",schema:schema34.type,parentSchema:schema34,data};
+const err16 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object",schema:schema33.type,parentSchema:schema33,data};
 if(vErrors === null){
 vErrors = [err16];
 }
@@ -1325,31 +1069,28 @@ vErrors.push(err16);
 }
 errors++;
 }
-validate23.errors = vErrors;
+validate22.errors = vErrors;
 return errors === 0;
 }
-validate23.evaluated = {"props":true,"dynamicProps":false,"dynamicItems":false};
+validate22.evaluated = {"props":true,"dynamicProps":false,"dynamicItems":false};
 
-export const dsc = validate24;
-const schema35 = {"$schema":"https://json-schema.org/draft/2020-12/schema","$id":"https://vitrine.invalid/schemas/dsc.schema.json","title":"Vitrine dsc block","description":"A calorimetry scan: heat capacity or heat flow against temperature.","type":"object","properties":{"film":{"type":"string","pattern":"^[A-Za-z0-9][A-Za-z0-9._:-]*$","description":"id of the deposition block"},"material":{"type":"string","pattern":"^[A-Za-z0-9][A-Za-z0-9._:-]*$","description":"id of the material block"},"rate":{"type":["string","number"],"quantityOf":"heating_rate","quantityExclusiveMinimum":0,"description":"heating rate"},"quantity":{"enum":["heat capacity","heat flow"],"description":"what the data column holds (default heat capacity)"},"mass":{"type":["string","number"],"quantityOf":"mass","quantityExclusiveMinimum":0,"description":"sample mass (needed for heat flow in mW; not for heat flow per mass, W/g)"},"endotherm":{"enum":["up","down"],"description":"sign convention of the heat-flow column: endotherms plotted up (heat into the sample positive, the default) or down; without this key, the convention a header states (Heat Flow (Endo Up)) is used"},"temperature_calibration":{"type":["string","number"],"quantityOf":"temperature_interval","description":"standard uncertainty of the temperature calibration (ASTM E967), entered in the budget of every temperature figure (default 0.5 K)"},"reference":{"type":"string","pattern":"^[A-Za-z0-9][A-Za-z0-9._:-]*$","description":"id of the liquid-cooled reference scan"},"data":{"type":"string","minLength":1,"description":"path of a CSV/TSV data file, relative to this notebook file, inside the notebook folder"},"columns":{"type":"object","description":"which table header holds each role","properties":{"temperature":{"type":"string"},"heat_capacity":{"type":"string"},"heat_flow":{"type":"string"}},"additionalProperties":false},"windows":{"type":"object","properties":{"glass":{"type":"array","prefixItems":[{"type":["string","number"],"quantityOf":"temperature","description":"lower end"},{"type":["string","number"],"quantityOf":"temperature","description":"upper end"}],"items":false,"minItems":2,"maxItems":2,"description":"[low, high] temperature range"},"liquid":{"type":"array","prefixItems":[{"type":["string","number"],"quantityOf":"temperature","description":"lower end"},{"type":["string","number"],"quantityOf":"temperature","description":"upper end"}],"items":false,"minItems":2,"maxItems":2,"description":"[low, high] temperature range"}},"additionalProperties":false},"notes":{"type":"string","description":"free text"}},"required":["rate"],"anyOf":[{"required":["film"]},{"required":["material"]}],"additionalProperties":false};
+export const material = validate23;
+const schema34 = {"$schema":"https://json-schema.org/draft/2020-12/schema","$id":"https://vitrine.invalid/schemas/material.schema.json","title":"Vitrine material block","description":"A glass-forming material and its reference properties.","type":"object","properties":{"name":{"type":"string","description":"name of the material"},"tg":{"type":["string","number"],"quantityOf":"temperature","description":"standard Tg: glass transition on cooling at 10 K/min"},"tg_source":{"type":"string","description":"where tg comes from: a citation or the id of a block"},"vft":{"type":"object","description":"decadic VFT parameters: log10 τ = log10_tau0 + B/(T − T0), τ in s","properties":{"log10_tau0":{"type":"number","description":"log10 of τ0 in seconds"},"B":{"type":["string","number"],"quantityOf":"temperature_interval","description":"VFT B (decadic), a temperature"},"T0":{"type":["string","number"],"quantityOf":"temperature","description":"VFT divergence temperature"}},"required":["log10_tau0","B","T0"],"additionalProperties":false},"molar_mass":{"type":["string","number"],"quantityOf":"molar_mass","quantityExclusiveMinimum":0,"description":"molar mass"},"tm":{"type":["string","number"],"quantityOf":"temperature","description":"melting temperature"},"delta_cp":{"type":["string","number"],"quantityOf":"heat_capacity","quantityExclusiveMinimum":0,"description":"heat-capacity step at Tg"},"structure":{"type":"string","description":"SMILES or InChIKey"},"notes":{"type":"string","description":"free text"}},"required":["name","tg"],"recommended":{"tg_source":"a Tg without its source cannot be checked"},"additionalProperties":false};
 
-function validate24(data, {instancePath="", parentData, parentDataProperty, rootData=data, dynamicAnchors={}}={}){
-/*# sourceURL="https://vitrine.invalid/schemas/dsc.schema.json" */;
+function validate23(data, {instancePath="", parentData, parentDataProperty, rootData=data, dynamicAnchors={}}={}){
+/*# sourceURL="https://vitrine.invalid/schemas/material.schema.json" */;
 let vErrors = null;
 let errors = 0;
-const evaluated0 = validate24.evaluated;
+const evaluated0 = validate23.evaluated;
 if(evaluated0.dynamicProps){
 evaluated0.props = undefined;
 }
 if(evaluated0.dynamicItems){
 evaluated0.items = undefined;
 }
-const _errs1 = errors;
-let valid0 = false;
-const _errs2 = errors;
 if(data && typeof data == "object" && !Array.isArray(data)){
-if(data.film === undefined){
-const err0 = {instancePath,schemaPath:"#/anyOf/0/required",keyword:"required",params:{missingProperty: "film"},message:"must have required property '"+"film"+"'",schema:schema35.anyOf[0].required,parentSchema:schema35.anyOf[0],data};
+if(data.name === undefined){
+const err0 = {instancePath,schemaPath:"#/required",keyword:"required",params:{missingProperty: "name"},message:"must have required property '"+"name"+"'",schema:schema34.required,parentSchema:schema34,data};
 if(vErrors === null){
 vErrors = [err0];
 }
@@ -1358,13 +1099,8 @@ vErrors.push(err0);
 }
 errors++;
 }
-}
-var _valid0 = _errs2 === errors;
-valid0 = valid0 || _valid0;
-const _errs3 = errors;
-if(data && typeof data == "object" && !Array.isArray(data)){
-if(data.material === undefined){
-const err1 = {instancePath,schemaPath:"#/anyOf/1/required",keyword:"required",params:{missingProperty: "material"},message:"must have required property '"+"material"+"'",schema:schema35.anyOf[1].required,parentSchema:schema35.anyOf[1],data};
+if(data.tg === undefined){
+const err1 = {instancePath,schemaPath:"#/required",keyword:"required",params:{missingProperty: "tg"},message:"must have required property '"+"tg"+"'",schema:schema34.required,parentSchema:schema34,data};
 if(vErrors === null){
 vErrors = [err1];
 }
@@ -1373,11 +1109,9 @@ vErrors.push(err1);
 }
 errors++;
 }
-}
-var _valid0 = _errs3 === errors;
-valid0 = valid0 || _valid0;
-if(!valid0){
-const err2 = {instancePath,schemaPath:"#/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf",schema:schema35.anyOf,parentSchema:schema35,data};
+for(const key0 in data){
+if(!(func1.call(schema34.properties, key0))){
+const err2 = {instancePath,schemaPath:"#/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key0},message:"must NOT have additional properties",schema:false,parentSchema:schema34,data};
 if(vErrors === null){
 vErrors = [err2];
 }
@@ -1386,20 +1120,11 @@ vErrors.push(err2);
 }
 errors++;
 }
-else {
-errors = _errs1;
-if(vErrors !== null){
-if(_errs1){
-vErrors.length = _errs1;
 }
-else {
-vErrors = null;
-}
-}
-}
-if(data && typeof data == "object" && !Array.isArray(data)){
-if(data.rate === undefined){
-const err3 = {instancePath,schemaPath:"#/required",keyword:"required",params:{missingProperty: "rate"},message:"must have required property '"+"rate"+"'",schema:schema35.required,parentSchema:schema35,data};
+if(data.name !== undefined){
+let data0 = data.name;
+if(typeof data0 !== "string"){
+const err3 = {instancePath:instancePath+"/name",schemaPath:"#/properties/name/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema34.properties.name.type,parentSchema:schema34.properties.name,data:data0};
 if(vErrors === null){
 vErrors = [err3];
 }
@@ -1408,9 +1133,11 @@ vErrors.push(err3);
 }
 errors++;
 }
-for(const key0 in data){
-if(!(func1.call(schema35.properties, key0))){
-const err4 = {instancePath,schemaPath:"#/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key0},message:"must NOT have additional properties",schema:false,parentSchema:schema35,data};
+}
+if(data.tg !== undefined){
+let data1 = data.tg;
+if((typeof data1 !== "string") && (!((typeof data1 == "number") && (isFinite(data1))))){
+const err4 = {instancePath:instancePath+"/tg",schemaPath:"#/properties/tg/type",keyword:"type",params:{type: schema34.properties.tg.type},message:"must be string,number",schema:schema34.properties.tg.type,parentSchema:schema34.properties.tg,data:data1};
 if(vErrors === null){
 vErrors = [err4];
 }
@@ -1420,11 +1147,10 @@ vErrors.push(err4);
 errors++;
 }
 }
-if(data.film !== undefined){
-let data0 = data.film;
-if(typeof data0 === "string"){
-if(!pattern4.test(data0)){
-const err5 = {instancePath:instancePath+"/film",schemaPath:"#/properties/film/pattern",keyword:"pattern",params:{pattern: "^[A-Za-z0-9][A-Za-z0-9._:-]*$"},message:"must match pattern \""+"^[A-Za-z0-9][A-Za-z0-9._:-]*$"+"\"",schema:"^[A-Za-z0-9][A-Za-z0-9._:-]*$",parentSchema:schema35.properties.film,data:data0};
+if(data.tg_source !== undefined){
+let data2 = data.tg_source;
+if(typeof data2 !== "string"){
+const err5 = {instancePath:instancePath+"/tg_source",schemaPath:"#/properties/tg_source/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema34.properties.tg_source.type,parentSchema:schema34.properties.tg_source,data:data2};
 if(vErrors === null){
 vErrors = [err5];
 }
@@ -1434,8 +1160,272 @@ vErrors.push(err5);
 errors++;
 }
 }
+if(data.vft !== undefined){
+let data3 = data.vft;
+if(data3 && typeof data3 == "object" && !Array.isArray(data3)){
+if(data3.log10_tau0 === undefined){
+const err6 = {instancePath:instancePath+"/vft",schemaPath:"#/properties/vft/required",keyword:"required",params:{missingProperty: "log10_tau0"},message:"must have required property '"+"log10_tau0"+"'",schema:schema34.properties.vft.required,parentSchema:schema34.properties.vft,data:data3};
+if(vErrors === null){
+vErrors = [err6];
+}
 else {
-const err6 = {instancePath:instancePath+"/film",schemaPath:"#/properties/film/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema35.properties.film.type,parentSchema:schema35.properties.film,data:data0};
+vErrors.push(err6);
+}
+errors++;
+}
+if(data3.B === undefined){
+const err7 = {instancePath:instancePath+"/vft",schemaPath:"#/properties/vft/required",keyword:"required",params:{missingProperty: "B"},message:"must have required property '"+"B"+"'",schema:schema34.properties.vft.required,parentSchema:schema34.properties.vft,data:data3};
+if(vErrors === null){
+vErrors = [err7];
+}
+else {
+vErrors.push(err7);
+}
+errors++;
+}
+if(data3.T0 === undefined){
+const err8 = {instancePath:instancePath+"/vft",schemaPath:"#/properties/vft/required",keyword:"required",params:{missingProperty: "T0"},message:"must have required property '"+"T0"+"'",schema:schema34.properties.vft.required,parentSchema:schema34.properties.vft,data:data3};
+if(vErrors === null){
+vErrors = [err8];
+}
+else {
+vErrors.push(err8);
+}
+errors++;
+}
+for(const key1 in data3){
+if(!(((key1 === "log10_tau0") || (key1 === "B")) || (key1 === "T0"))){
+const err9 = {instancePath:instancePath+"/vft",schemaPath:"#/properties/vft/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key1},message:"must NOT have additional properties",schema:false,parentSchema:schema34.properties.vft,data:data3};
+if(vErrors === null){
+vErrors = [err9];
+}
+else {
+vErrors.push(err9);
+}
+errors++;
+}
+}
+if(data3.log10_tau0 !== undefined){
+let data4 = data3.log10_tau0;
+if(!((typeof data4 == "number") && (isFinite(data4)))){
+const err10 = {instancePath:instancePath+"/vft/log10_tau0",schemaPath:"#/properties/vft/properties/log10_tau0/type",keyword:"type",params:{type: "number"},message:"must be number",schema:schema34.properties.vft.properties.log10_tau0.type,parentSchema:schema34.properties.vft.properties.log10_tau0,data:data4};
+if(vErrors === null){
+vErrors = [err10];
+}
+else {
+vErrors.push(err10);
+}
+errors++;
+}
+}
+if(data3.B !== undefined){
+let data5 = data3.B;
+if((typeof data5 !== "string") && (!((typeof data5 == "number") && (isFinite(data5))))){
+const err11 = {instancePath:instancePath+"/vft/B",schemaPath:"#/properties/vft/properties/B/type",keyword:"type",params:{type: schema34.properties.vft.properties.B.type},message:"must be string,number",schema:schema34.properties.vft.properties.B.type,parentSchema:schema34.properties.vft.properties.B,data:data5};
+if(vErrors === null){
+vErrors = [err11];
+}
+else {
+vErrors.push(err11);
+}
+errors++;
+}
+}
+if(data3.T0 !== undefined){
+let data6 = data3.T0;
+if((typeof data6 !== "string") && (!((typeof data6 == "number") && (isFinite(data6))))){
+const err12 = {instancePath:instancePath+"/vft/T0",schemaPath:"#/properties/vft/properties/T0/type",keyword:"type",params:{type: schema34.properties.vft.properties.T0.type},message:"must be string,number",schema:schema34.properties.vft.properties.T0.type,parentSchema:schema34.properties.vft.properties.T0,data:data6};
+if(vErrors === null){
+vErrors = [err12];
+}
+else {
+vErrors.push(err12);
+}
+errors++;
+}
+}
+}
+else {
+const err13 = {instancePath:instancePath+"/vft",schemaPath:"#/properties/vft/type",keyword:"type",params:{type: "object"},message:"must be object",schema:schema34.properties.vft.type,parentSchema:schema34.properties.vft,data:data3};
+if(vErrors === null){
+vErrors = [err13];
+}
+else {
+vErrors.push(err13);
+}
+errors++;
+}
+}
+if(data.molar_mass !== undefined){
+let data7 = data.molar_mass;
+if((typeof data7 !== "string") && (!((typeof data7 == "number") && (isFinite(data7))))){
+const err14 = {instancePath:instancePath+"/molar_mass",schemaPath:"#/properties/molar_mass/type",keyword:"type",params:{type: schema34.properties.molar_mass.type},message:"must be string,number",schema:schema34.properties.molar_mass.type,parentSchema:schema34.properties.molar_mass,data:data7};
+if(vErrors === null){
+vErrors = [err14];
+}
+else {
+vErrors.push(err14);
+}
+errors++;
+}
+}
+if(data.tm !== undefined){
+let data8 = data.tm;
+if((typeof data8 !== "string") && (!((typeof data8 == "number") && (isFinite(data8))))){
+const err15 = {instancePath:instancePath+"/tm",schemaPath:"#/properties/tm/type",keyword:"type",params:{type: schema34.properties.tm.type},message:"must be string,number",schema:schema34.properties.tm.type,parentSchema:schema34.properties.tm,data:data8};
+if(vErrors === null){
+vErrors = [err15];
+}
+else {
+vErrors.push(err15);
+}
+errors++;
+}
+}
+if(data.delta_cp !== undefined){
+let data9 = data.delta_cp;
+if((typeof data9 !== "string") && (!((typeof data9 == "number") && (isFinite(data9))))){
+const err16 = {instancePath:instancePath+"/delta_cp",schemaPath:"#/properties/delta_cp/type",keyword:"type",params:{type: schema34.properties.delta_cp.type},message:"must be string,number",schema:schema34.properties.delta_cp.type,parentSchema:schema34.properties.delta_cp,data:data9};
+if(vErrors === null){
+vErrors = [err16];
+}
+else {
+vErrors.push(err16);
+}
+errors++;
+}
+}
+if(data.structure !== undefined){
+let data10 = data.structure;
+if(typeof data10 !== "string"){
+const err17 = {instancePath:instancePath+"/structure",schemaPath:"#/properties/structure/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema34.properties.structure.type,parentSchema:schema34.properties.structure,data:data10};
+if(vErrors === null){
+vErrors = [err17];
+}
+else {
+vErrors.push(err17);
+}
+errors++;
+}
+}
+if(data.notes !== undefined){
+let data11 = data.notes;
+if(typeof data11 !== "string"){
+const err18 = {instancePath:instancePath+"/notes",schemaPath:"#/properties/notes/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema34.properties.notes.type,parentSchema:schema34.properties.notes,data:data11};
+if(vErrors === null){
+vErrors = [err18];
+}
+else {
+vErrors.push(err18);
+}
+errors++;
+}
+}
+}
+else {
+const err19 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object",schema:schema34.type,parentSchema:schema34,data};
+if(vErrors === null){
+vErrors = [err19];
+}
+else {
+vErrors.push(err19);
+}
+errors++;
+}
+validate23.errors = vErrors;
+return errors === 0;
+}
+validate23.evaluated = {"props":true,"dynamicProps":false,"dynamicItems":false};
+
+export const ramp = validate24;
+const schema35 = {"$schema":"https://json-schema.org/draft/2020-12/schema","$id":"https://vitrine.invalid/schemas/ramp.schema.json","title":"Vitrine ramp block","description":"Thickness (or volume) against temperature while heating, cooling or both.","type":"object","properties":{"film":{"type":"string","pattern":"^[A-Za-z0-9][A-Za-z0-9._:-]*$","description":"id of the deposition block"},"rate":{"type":["string","number"],"quantityOf":"heating_rate","quantityExclusiveMinimum":0,"description":"nominal heating or cooling rate"},"direction":{"enum":["heating","cooling","cycle"],"description":"inferred from the data when absent"},"data":{"type":"string","minLength":1,"description":"path of a CSV/TSV data file, relative to this notebook file, inside the notebook folder"},"columns":{"type":"object","description":"which table header holds each role","properties":{"time":{"type":"string"},"temperature":{"type":"string"},"thickness":{"type":"string"},"volume":{"type":"string"}},"additionalProperties":false},"reference_temperature":{"type":["string","number"],"quantityOf":"temperature","description":"where the density gain is evaluated (default: the substrate temperature)"},"windows":{"type":"object","description":"temperature ranges for the line fits","properties":{"glass":{"type":"array","prefixItems":[{"type":["string","number"],"quantityOf":"temperature","description":"lower end"},{"type":["string","number"],"quantityOf":"temperature","description":"upper end"}],"items":false,"minItems":2,"maxItems":2,"description":"[low, high] temperature range"},"liquid":{"type":"array","prefixItems":[{"type":["string","number"],"quantityOf":"temperature","description":"lower end"},{"type":["string","number"],"quantityOf":"temperature","description":"upper end"}],"items":false,"minItems":2,"maxItems":2,"description":"[low, high] temperature range"},"deposited":{"type":"array","prefixItems":[{"type":["string","number"],"quantityOf":"temperature","description":"lower end"},{"type":["string","number"],"quantityOf":"temperature","description":"upper end"}],"items":false,"minItems":2,"maxItems":2,"description":"[low, high] temperature range"}},"additionalProperties":false},"temperature_calibration":{"type":["string","number"],"quantityOf":"temperature_interval","description":"standard uncertainty of the stage thermometer, entered in the budget of every temperature figure (default 0.5 K)"},"instrument":{"type":"string","description":"instrument type"},"notes":{"type":"string","description":"free text"}},"required":["film","rate"],"additionalProperties":false};
+
+function validate24(data, {instancePath="", parentData, parentDataProperty, rootData=data, dynamicAnchors={}}={}){
+/*# sourceURL="https://vitrine.invalid/schemas/ramp.schema.json" */;
+let vErrors = null;
+let errors = 0;
+const evaluated0 = validate24.evaluated;
+if(evaluated0.dynamicProps){
+evaluated0.props = undefined;
+}
+if(evaluated0.dynamicItems){
+evaluated0.items = undefined;
+}
+if(data && typeof data == "object" && !Array.isArray(data)){
+if(data.film === undefined){
+const err0 = {instancePath,schemaPath:"#/required",keyword:"required",params:{missingProperty: "film"},message:"must have required property '"+"film"+"'",schema:schema35.required,parentSchema:schema35,data};
+if(vErrors === null){
+vErrors = [err0];
+}
+else {
+vErrors.push(err0);
+}
+errors++;
+}
+if(data.rate === undefined){
+const err1 = {instancePath,schemaPath:"#/required",keyword:"required",params:{missingProperty: "rate"},message:"must have required property '"+"rate"+"'",schema:schema35.required,parentSchema:schema35,data};
+if(vErrors === null){
+vErrors = [err1];
+}
+else {
+vErrors.push(err1);
+}
+errors++;
+}
+for(const key0 in data){
+if(!(func1.call(schema35.properties, key0))){
+const err2 = {instancePath,schemaPath:"#/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key0},message:"must NOT have additional properties",schema:false,parentSchema:schema35,data};
+if(vErrors === null){
+vErrors = [err2];
+}
+else {
+vErrors.push(err2);
+}
+errors++;
+}
+}
+if(data.film !== undefined){
+let data0 = data.film;
+if(typeof data0 === "string"){
+if(!pattern4.test(data0)){
+const err3 = {instancePath:instancePath+"/film",schemaPath:"#/properties/film/pattern",keyword:"pattern",params:{pattern: "^[A-Za-z0-9][A-Za-z0-9._:-]*$"},message:"must match pattern \""+"^[A-Za-z0-9][A-Za-z0-9._:-]*$"+"\"",schema:"^[A-Za-z0-9][A-Za-z0-9._:-]*$",parentSchema:schema35.properties.film,data:data0};
+if(vErrors === null){
+vErrors = [err3];
+}
+else {
+vErrors.push(err3);
+}
+errors++;
+}
+}
+else {
+const err4 = {instancePath:instancePath+"/film",schemaPath:"#/properties/film/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema35.properties.film.type,parentSchema:schema35.properties.film,data:data0};
+if(vErrors === null){
+vErrors = [err4];
+}
+else {
+vErrors.push(err4);
+}
+errors++;
+}
+}
+if(data.rate !== undefined){
+let data1 = data.rate;
+if((typeof data1 !== "string") && (!((typeof data1 == "number") && (isFinite(data1))))){
+const err5 = {instancePath:instancePath+"/rate",schemaPath:"#/properties/rate/type",keyword:"type",params:{type: schema35.properties.rate.type},message:"must be string,number",schema:schema35.properties.rate.type,parentSchema:schema35.properties.rate,data:data1};
+if(vErrors === null){
+vErrors = [err5];
+}
+else {
+vErrors.push(err5);
+}
+errors++;
+}
+}
+if(data.direction !== undefined){
+let data2 = data.direction;
+if(!(((data2 === "heating") || (data2 === "cooling")) || (data2 === "cycle"))){
+const err6 = {instancePath:instancePath+"/direction",schemaPath:"#/properties/direction/enum",keyword:"enum",params:{allowedValues: schema35.properties.direction.enum},message:"must be equal to one of the allowed values",schema:schema35.properties.direction.enum,parentSchema:schema35.properties.direction,data:data2};
 if(vErrors === null){
 vErrors = [err6];
 }
@@ -1445,11 +1435,11 @@ vErrors.push(err6);
 errors++;
 }
 }
-if(data.material !== undefined){
-let data1 = data.material;
-if(typeof data1 === "string"){
-if(!pattern4.test(data1)){
-const err7 = {instancePath:instancePath+"/material",schemaPath:"#/properties/material/pattern",keyword:"pattern",params:{pattern: "^[A-Za-z0-9][A-Za-z0-9._:-]*$"},message:"must match pattern \""+"^[A-Za-z0-9][A-Za-z0-9._:-]*$"+"\"",schema:"^[A-Za-z0-9][A-Za-z0-9._:-]*$",parentSchema:schema35.properties.material,data:data1};
+if(data.data !== undefined){
+let data3 = data.data;
+if(typeof data3 === "string"){
+if(func3(data3) < 1){
+const err7 = {instancePath:instancePath+"/data",schemaPath:"#/properties/data/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters",schema:1,parentSchema:schema35.properties.data,data:data3};
 if(vErrors === null){
 vErrors = [err7];
 }
@@ -1460,7 +1450,7 @@ errors++;
 }
 }
 else {
-const err8 = {instancePath:instancePath+"/material",schemaPath:"#/properties/material/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema35.properties.material.type,parentSchema:schema35.properties.material,data:data1};
+const err8 = {instancePath:instancePath+"/data",schemaPath:"#/properties/data/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema35.properties.data.type,parentSchema:schema35.properties.data,data:data3};
 if(vErrors === null){
 vErrors = [err8];
 }
@@ -1470,10 +1460,12 @@ vErrors.push(err8);
 errors++;
 }
 }
-if(data.rate !== undefined){
-let data2 = data.rate;
-if((typeof data2 !== "string") && (!((typeof data2 == "number") && (isFinite(data2))))){
-const err9 = {instancePath:instancePath+"/rate",schemaPath:"#/properties/rate/type",keyword:"type",params:{type: schema35.properties.rate.type},message:"must be string,number",schema:schema35.properties.rate.type,parentSchema:schema35.properties.rate,data:data2};
+if(data.columns !== undefined){
+let data4 = data.columns;
+if(data4 && typeof data4 == "object" && !Array.isArray(data4)){
+for(const key1 in data4){
+if(!((((key1 === "time") || (key1 === "temperature")) || (key1 === "thickness")) || (key1 === "volume"))){
+const err9 = {instancePath:instancePath+"/columns",schemaPath:"#/properties/columns/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key1},message:"must NOT have additional properties",schema:false,parentSchema:schema35.properties.columns,data:data4};
 if(vErrors === null){
 vErrors = [err9];
 }
@@ -1483,10 +1475,10 @@ vErrors.push(err9);
 errors++;
 }
 }
-if(data.quantity !== undefined){
-let data3 = data.quantity;
-if(!((data3 === "heat capacity") || (data3 === "heat flow"))){
-const err10 = {instancePath:instancePath+"/quantity",schemaPath:"#/properties/quantity/enum",keyword:"enum",params:{allowedValues: schema35.properties.quantity.enum},message:"must be equal to one of the allowed values",schema:schema35.properties.quantity.enum,parentSchema:schema35.properties.quantity,data:data3};
+if(data4.time !== undefined){
+let data5 = data4.time;
+if(typeof data5 !== "string"){
+const err10 = {instancePath:instancePath+"/columns/time",schemaPath:"#/properties/columns/properties/time/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema35.properties.columns.properties.time.type,parentSchema:schema35.properties.columns.properties.time,data:data5};
 if(vErrors === null){
 vErrors = [err10];
 }
@@ -1496,10 +1488,10 @@ vErrors.push(err10);
 errors++;
 }
 }
-if(data.mass !== undefined){
-let data4 = data.mass;
-if((typeof data4 !== "string") && (!((typeof data4 == "number") && (isFinite(data4))))){
-const err11 = {instancePath:instancePath+"/mass",schemaPath:"#/properties/mass/type",keyword:"type",params:{type: schema35.properties.mass.type},message:"must be string,number",schema:schema35.properties.mass.type,parentSchema:schema35.properties.mass,data:data4};
+if(data4.temperature !== undefined){
+let data6 = data4.temperature;
+if(typeof data6 !== "string"){
+const err11 = {instancePath:instancePath+"/columns/temperature",schemaPath:"#/properties/columns/properties/temperature/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema35.properties.columns.properties.temperature.type,parentSchema:schema35.properties.columns.properties.temperature,data:data6};
 if(vErrors === null){
 vErrors = [err11];
 }
@@ -1509,10 +1501,10 @@ vErrors.push(err11);
 errors++;
 }
 }
-if(data.endotherm !== undefined){
-let data5 = data.endotherm;
-if(!((data5 === "up") || (data5 === "down"))){
-const err12 = {instancePath:instancePath+"/endotherm",schemaPath:"#/properties/endotherm/enum",keyword:"enum",params:{allowedValues: schema35.properties.endotherm.enum},message:"must be equal to one of the allowed values",schema:schema35.properties.endotherm.enum,parentSchema:schema35.properties.endotherm,data:data5};
+if(data4.thickness !== undefined){
+let data7 = data4.thickness;
+if(typeof data7 !== "string"){
+const err12 = {instancePath:instancePath+"/columns/thickness",schemaPath:"#/properties/columns/properties/thickness/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema35.properties.columns.properties.thickness.type,parentSchema:schema35.properties.columns.properties.thickness,data:data7};
 if(vErrors === null){
 vErrors = [err12];
 }
@@ -1522,10 +1514,10 @@ vErrors.push(err12);
 errors++;
 }
 }
-if(data.temperature_calibration !== undefined){
-let data6 = data.temperature_calibration;
-if((typeof data6 !== "string") && (!((typeof data6 == "number") && (isFinite(data6))))){
-const err13 = {instancePath:instancePath+"/temperature_calibration",schemaPath:"#/properties/temperature_calibration/type",keyword:"type",params:{type: schema35.properties.temperature_calibration.type},message:"must be string,number",schema:schema35.properties.temperature_calibration.type,parentSchema:schema35.properties.temperature_calibration,data:data6};
+if(data4.volume !== undefined){
+let data8 = data4.volume;
+if(typeof data8 !== "string"){
+const err13 = {instancePath:instancePath+"/columns/volume",schemaPath:"#/properties/columns/properties/volume/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema35.properties.columns.properties.volume.type,parentSchema:schema35.properties.columns.properties.volume,data:data8};
 if(vErrors === null){
 vErrors = [err13];
 }
@@ -1535,11 +1527,9 @@ vErrors.push(err13);
 errors++;
 }
 }
-if(data.reference !== undefined){
-let data7 = data.reference;
-if(typeof data7 === "string"){
-if(!pattern4.test(data7)){
-const err14 = {instancePath:instancePath+"/reference",schemaPath:"#/properties/reference/pattern",keyword:"pattern",params:{pattern: "^[A-Za-z0-9][A-Za-z0-9._:-]*$"},message:"must match pattern \""+"^[A-Za-z0-9][A-Za-z0-9._:-]*$"+"\"",schema:"^[A-Za-z0-9][A-Za-z0-9._:-]*$",parentSchema:schema35.properties.reference,data:data7};
+}
+else {
+const err14 = {instancePath:instancePath+"/columns",schemaPath:"#/properties/columns/type",keyword:"type",params:{type: "object"},message:"must be object",schema:schema35.properties.columns.type,parentSchema:schema35.properties.columns,data:data4};
 if(vErrors === null){
 vErrors = [err14];
 }
@@ -1549,8 +1539,10 @@ vErrors.push(err14);
 errors++;
 }
 }
-else {
-const err15 = {instancePath:instancePath+"/reference",schemaPath:"#/properties/reference/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema35.properties.reference.type,parentSchema:schema35.properties.reference,data:data7};
+if(data.reference_temperature !== undefined){
+let data9 = data.reference_temperature;
+if((typeof data9 !== "string") && (!((typeof data9 == "number") && (isFinite(data9))))){
+const err15 = {instancePath:instancePath+"/reference_temperature",schemaPath:"#/properties/reference_temperature/type",keyword:"type",params:{type: schema35.properties.reference_temperature.type},message:"must be string,number",schema:schema35.properties.reference_temperature.type,parentSchema:schema35.properties.reference_temperature,data:data9};
 if(vErrors === null){
 vErrors = [err15];
 }
@@ -1560,11 +1552,12 @@ vErrors.push(err15);
 errors++;
 }
 }
-if(data.data !== undefined){
-let data8 = data.data;
-if(typeof data8 === "string"){
-if(func4(data8) < 1){
-const err16 = {instancePath:instancePath+"/data",schemaPath:"#/properties/data/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters",schema:1,parentSchema:schema35.properties.data,data:data8};
+if(data.windows !== undefined){
+let data10 = data.windows;
+if(data10 && typeof data10 == "object" && !Array.isArray(data10)){
+for(const key2 in data10){
+if(!(((key2 === "glass") || (key2 === "liquid")) || (key2 === "deposited"))){
+const err16 = {instancePath:instancePath+"/windows",schemaPath:"#/properties/windows/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key2},message:"must NOT have additional properties",schema:false,parentSchema:schema35.properties.windows,data:data10};
 if(vErrors === null){
 vErrors = [err16];
 }
@@ -1574,8 +1567,11 @@ vErrors.push(err16);
 errors++;
 }
 }
-else {
-const err17 = {instancePath:instancePath+"/data",schemaPath:"#/properties/data/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema35.properties.data.type,parentSchema:schema35.properties.data,data:data8};
+if(data10.glass !== undefined){
+let data11 = data10.glass;
+if(Array.isArray(data11)){
+if(data11.length > 2){
+const err17 = {instancePath:instancePath+"/windows/glass",schemaPath:"#/properties/windows/properties/glass/maxItems",keyword:"maxItems",params:{limit: 2},message:"must NOT have more than 2 items",schema:2,parentSchema:schema35.properties.windows.properties.glass,data:data11};
 if(vErrors === null){
 vErrors = [err17];
 }
@@ -1584,13 +1580,8 @@ vErrors.push(err17);
 }
 errors++;
 }
-}
-if(data.columns !== undefined){
-let data9 = data.columns;
-if(data9 && typeof data9 == "object" && !Array.isArray(data9)){
-for(const key1 in data9){
-if(!(((key1 === "temperature") || (key1 === "heat_capacity")) || (key1 === "heat_flow"))){
-const err18 = {instancePath:instancePath+"/columns",schemaPath:"#/properties/columns/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key1},message:"must NOT have additional properties",schema:false,parentSchema:schema35.properties.columns,data:data9};
+if(data11.length < 2){
+const err18 = {instancePath:instancePath+"/windows/glass",schemaPath:"#/properties/windows/properties/glass/minItems",keyword:"minItems",params:{limit: 2},message:"must NOT have fewer than 2 items",schema:2,parentSchema:schema35.properties.windows.properties.glass,data:data11};
 if(vErrors === null){
 vErrors = [err18];
 }
@@ -1599,11 +1590,11 @@ vErrors.push(err18);
 }
 errors++;
 }
-}
-if(data9.temperature !== undefined){
-let data10 = data9.temperature;
-if(typeof data10 !== "string"){
-const err19 = {instancePath:instancePath+"/columns/temperature",schemaPath:"#/properties/columns/properties/temperature/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema35.properties.columns.properties.temperature.type,parentSchema:schema35.properties.columns.properties.temperature,data:data10};
+const len0 = data11.length;
+if(len0 > 0){
+let data12 = data11[0];
+if((typeof data12 !== "string") && (!((typeof data12 == "number") && (isFinite(data12))))){
+const err19 = {instancePath:instancePath+"/windows/glass/0",schemaPath:"#/properties/windows/properties/glass/prefixItems/0/type",keyword:"type",params:{type: schema35.properties.windows.properties.glass.prefixItems[0].type},message:"must be string,number",schema:schema35.properties.windows.properties.glass.prefixItems[0].type,parentSchema:schema35.properties.windows.properties.glass.prefixItems[0],data:data12};
 if(vErrors === null){
 vErrors = [err19];
 }
@@ -1613,10 +1604,10 @@ vErrors.push(err19);
 errors++;
 }
 }
-if(data9.heat_capacity !== undefined){
-let data11 = data9.heat_capacity;
-if(typeof data11 !== "string"){
-const err20 = {instancePath:instancePath+"/columns/heat_capacity",schemaPath:"#/properties/columns/properties/heat_capacity/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema35.properties.columns.properties.heat_capacity.type,parentSchema:schema35.properties.columns.properties.heat_capacity,data:data11};
+if(len0 > 1){
+let data13 = data11[1];
+if((typeof data13 !== "string") && (!((typeof data13 == "number") && (isFinite(data13))))){
+const err20 = {instancePath:instancePath+"/windows/glass/1",schemaPath:"#/properties/windows/properties/glass/prefixItems/1/type",keyword:"type",params:{type: schema35.properties.windows.properties.glass.prefixItems[1].type},message:"must be string,number",schema:schema35.properties.windows.properties.glass.prefixItems[1].type,parentSchema:schema35.properties.windows.properties.glass.prefixItems[1],data:data13};
 if(vErrors === null){
 vErrors = [err20];
 }
@@ -1626,10 +1617,9 @@ vErrors.push(err20);
 errors++;
 }
 }
-if(data9.heat_flow !== undefined){
-let data12 = data9.heat_flow;
-if(typeof data12 !== "string"){
-const err21 = {instancePath:instancePath+"/columns/heat_flow",schemaPath:"#/properties/columns/properties/heat_flow/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema35.properties.columns.properties.heat_flow.type,parentSchema:schema35.properties.columns.properties.heat_flow,data:data12};
+const len1 = data11.length;
+if(!(len1 <= 2)){
+const err21 = {instancePath:instancePath+"/windows/glass",schemaPath:"#/properties/windows/properties/glass/items",keyword:"items",params:{limit: 2},message:"must NOT have more than 2 items",schema:false,parentSchema:schema35.properties.windows.properties.glass,data:data11};
 if(vErrors === null){
 vErrors = [err21];
 }
@@ -1639,9 +1629,8 @@ vErrors.push(err21);
 errors++;
 }
 }
-}
 else {
-const err22 = {instancePath:instancePath+"/columns",schemaPath:"#/properties/columns/type",keyword:"type",params:{type: "object"},message:"must be object",schema:schema35.properties.columns.type,parentSchema:schema35.properties.columns,data:data9};
+const err22 = {instancePath:instancePath+"/windows/glass",schemaPath:"#/properties/windows/properties/glass/type",keyword:"type",params:{type: "array"},message:"must be array",schema:schema35.properties.windows.properties.glass.type,parentSchema:schema35.properties.windows.properties.glass,data:data11};
 if(vErrors === null){
 vErrors = [err22];
 }
@@ -1651,12 +1640,11 @@ vErrors.push(err22);
 errors++;
 }
 }
-if(data.windows !== undefined){
-let data13 = data.windows;
-if(data13 && typeof data13 == "object" && !Array.isArray(data13)){
-for(const key2 in data13){
-if(!((key2 === "glass") || (key2 === "liquid"))){
-const err23 = {instancePath:instancePath+"/windows",schemaPath:"#/properties/windows/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key2},message:"must NOT have additional properties",schema:false,parentSchema:schema35.properties.windows,data:data13};
+if(data10.liquid !== undefined){
+let data14 = data10.liquid;
+if(Array.isArray(data14)){
+if(data14.length > 2){
+const err23 = {instancePath:instancePath+"/windows/liquid",schemaPath:"#/properties/windows/properties/liquid/maxItems",keyword:"maxItems",params:{limit: 2},message:"must NOT have more than 2 items",schema:2,parentSchema:schema35.properties.windows.properties.liquid,data:data14};
 if(vErrors === null){
 vErrors = [err23];
 }
@@ -1665,12 +1653,8 @@ vErrors.push(err23);
 }
 errors++;
 }
-}
-if(data13.glass !== undefined){
-let data14 = data13.glass;
-if(Array.isArray(data14)){
-if(data14.length > 2){
-const err24 = {instancePath:instancePath+"/windows/glass",schemaPath:"#/properties/windows/properties/glass/maxItems",keyword:"maxItems",params:{limit: 2},message:"must NOT have more than 2 items",schema:2,parentSchema:schema35.properties.windows.properties.glass,data:data14};
+if(data14.length < 2){
+const err24 = {instancePath:instancePath+"/windows/liquid",schemaPath:"#/properties/windows/properties/liquid/minItems",keyword:"minItems",params:{limit: 2},message:"must NOT have fewer than 2 items",schema:2,parentSchema:schema35.properties.windows.properties.liquid,data:data14};
 if(vErrors === null){
 vErrors = [err24];
 }
@@ -1679,8 +1663,11 @@ vErrors.push(err24);
 }
 errors++;
 }
-if(data14.length < 2){
-const err25 = {instancePath:instancePath+"/windows/glass",schemaPath:"#/properties/windows/properties/glass/minItems",keyword:"minItems",params:{limit: 2},message:"must NOT have fewer than 2 items",schema:2,parentSchema:schema35.properties.windows.properties.glass,data:data14};
+const len2 = data14.length;
+if(len2 > 0){
+let data15 = data14[0];
+if((typeof data15 !== "string") && (!((typeof data15 == "number") && (isFinite(data15))))){
+const err25 = {instancePath:instancePath+"/windows/liquid/0",schemaPath:"#/properties/windows/properties/liquid/prefixItems/0/type",keyword:"type",params:{type: schema35.properties.windows.properties.liquid.prefixItems[0].type},message:"must be string,number",schema:schema35.properties.windows.properties.liquid.prefixItems[0].type,parentSchema:schema35.properties.windows.properties.liquid.prefixItems[0],data:data15};
 if(vErrors === null){
 vErrors = [err25];
 }
@@ -1689,11 +1676,11 @@ vErrors.push(err25);
 }
 errors++;
 }
-const len0 = data14.length;
-if(len0 > 0){
-let data15 = data14[0];
-if((typeof data15 !== "string") && (!((typeof data15 == "number") && (isFinite(data15))))){
-const err26 = {instancePath:instancePath+"/windows/glass/0",schemaPath:"#/properties/windows/properties/glass/prefixItems/0/type",keyword:"type",params:{type: schema35.properties.windows.properties.glass.prefixItems[0].type},message:"must be string,number",schema:schema35.properties.windows.properties.glass.prefixItems[0].type,parentSchema:schema35.properties.windows.properties.glass.prefixItems[0],data:data15};
+}
+if(len2 > 1){
+let data16 = data14[1];
+if((typeof data16 !== "string") && (!((typeof data16 == "number") && (isFinite(data16))))){
+const err26 = {instancePath:instancePath+"/windows/liquid/1",schemaPath:"#/properties/windows/properties/liquid/prefixItems/1/type",keyword:"type",params:{type: schema35.properties.windows.properties.liquid.prefixItems[1].type},message:"must be string,number",schema:schema35.properties.windows.properties.liquid.prefixItems[1].type,parentSchema:schema35.properties.windows.properties.liquid.prefixItems[1],data:data16};
 if(vErrors === null){
 vErrors = [err26];
 }
@@ -1703,10 +1690,9 @@ vErrors.push(err26);
 errors++;
 }
 }
-if(len0 > 1){
-let data16 = data14[1];
-if((typeof data16 !== "string") && (!((typeof data16 == "number") && (isFinite(data16))))){
-const err27 = {instancePath:instancePath+"/windows/glass/1",schemaPath:"#/properties/windows/properties/glass/prefixItems/1/type",keyword:"type",params:{type: schema35.properties.windows.properties.glass.prefixItems[1].type},message:"must be string,number",schema:schema35.properties.windows.properties.glass.prefixItems[1].type,parentSchema:schema35.properties.windows.properties.glass.prefixItems[1],data:data16};
+const len3 = data14.length;
+if(!(len3 <= 2)){
+const err27 = {instancePath:instancePath+"/windows/liquid",schemaPath:"#/properties/windows/properties/liquid/items",keyword:"items",params:{limit: 2},message:"must NOT have more than 2 items",schema:false,parentSchema:schema35.properties.windows.properties.liquid,data:data14};
 if(vErrors === null){
 vErrors = [err27];
 }
@@ -1716,9 +1702,8 @@ vErrors.push(err27);
 errors++;
 }
 }
-const len1 = data14.length;
-if(!(len1 <= 2)){
-const err28 = {instancePath:instancePath+"/windows/glass",schemaPath:"#/properties/windows/properties/glass/items",keyword:"items",params:{limit: 2},message:"must NOT have more than 2 items",schema:false,parentSchema:schema35.properties.windows.properties.glass,data:data14};
+else {
+const err28 = {instancePath:instancePath+"/windows/liquid",schemaPath:"#/properties/windows/properties/liquid/type",keyword:"type",params:{type: "array"},message:"must be array",schema:schema35.properties.windows.properties.liquid.type,parentSchema:schema35.properties.windows.properties.liquid,data:data14};
 if(vErrors === null){
 vErrors = [err28];
 }
@@ -1728,8 +1713,11 @@ vErrors.push(err28);
 errors++;
 }
 }
-else {
-const err29 = {instancePath:instancePath+"/windows/glass",schemaPath:"#/properties/windows/properties/glass/type",keyword:"type",params:{type: "array"},message:"must be array",schema:schema35.properties.windows.properties.glass.type,parentSchema:schema35.properties.windows.properties.glass,data:data14};
+if(data10.deposited !== undefined){
+let data17 = data10.deposited;
+if(Array.isArray(data17)){
+if(data17.length > 2){
+const err29 = {instancePath:instancePath+"/windows/deposited",schemaPath:"#/properties/windows/properties/deposited/maxItems",keyword:"maxItems",params:{limit: 2},message:"must NOT have more than 2 items",schema:2,parentSchema:schema35.properties.windows.properties.deposited,data:data17};
 if(vErrors === null){
 vErrors = [err29];
 }
@@ -1738,12 +1726,8 @@ vErrors.push(err29);
 }
 errors++;
 }
-}
-if(data13.liquid !== undefined){
-let data17 = data13.liquid;
-if(Array.isArray(data17)){
-if(data17.length > 2){
-const err30 = {instancePath:instancePath+"/windows/liquid",schemaPath:"#/properties/windows/properties/liquid/maxItems",keyword:"maxItems",params:{limit: 2},message:"must NOT have more than 2 items",schema:2,parentSchema:schema35.properties.windows.properties.liquid,data:data17};
+if(data17.length < 2){
+const err30 = {instancePath:instancePath+"/windows/deposited",schemaPath:"#/properties/windows/properties/deposited/minItems",keyword:"minItems",params:{limit: 2},message:"must NOT have fewer than 2 items",schema:2,parentSchema:schema35.properties.windows.properties.deposited,data:data17};
 if(vErrors === null){
 vErrors = [err30];
 }
@@ -1752,8 +1736,11 @@ vErrors.push(err30);
 }
 errors++;
 }
-if(data17.length < 2){
-const err31 = {instancePath:instancePath+"/windows/liquid",schemaPath:"#/properties/windows/properties/liquid/minItems",keyword:"minItems",params:{limit: 2},message:"must NOT have fewer than 2 items",schema:2,parentSchema:schema35.properties.windows.properties.liquid,data:data17};
+const len4 = data17.length;
+if(len4 > 0){
+let data18 = data17[0];
+if((typeof data18 !== "string") && (!((typeof data18 == "number") && (isFinite(data18))))){
+const err31 = {instancePath:instancePath+"/windows/deposited/0",schemaPath:"#/properties/windows/properties/deposited/prefixItems/0/type",keyword:"type",params:{type: schema35.properties.windows.properties.deposited.prefixItems[0].type},message:"must be string,number",schema:schema35.properties.windows.properties.deposited.prefixItems[0].type,parentSchema:schema35.properties.windows.properties.deposited.prefixItems[0],data:data18};
 if(vErrors === null){
 vErrors = [err31];
 }
@@ -1762,11 +1749,11 @@ vErrors.push(err31);
 }
 errors++;
 }
-const len2 = data17.length;
-if(len2 > 0){
-let data18 = data17[0];
-if((typeof data18 !== "string") && (!((typeof data18 == "number") && (isFinite(data18))))){
-const err32 = {instancePath:instancePath+"/windows/liquid/0",schemaPath:"#/properties/windows/properties/liquid/prefixItems/0/type",keyword:"type",params:{type: schema35.properties.windows.properties.liquid.prefixItems[0].type},message:"must be string,number",schema:schema35.properties.windows.properties.liquid.prefixItems[0].type,parentSchema:schema35.properties.windows.properties.liquid.prefixItems[0],data:data18};
+}
+if(len4 > 1){
+let data19 = data17[1];
+if((typeof data19 !== "string") && (!((typeof data19 == "number") && (isFinite(data19))))){
+const err32 = {instancePath:instancePath+"/windows/deposited/1",schemaPath:"#/properties/windows/properties/deposited/prefixItems/1/type",keyword:"type",params:{type: schema35.properties.windows.properties.deposited.prefixItems[1].type},message:"must be string,number",schema:schema35.properties.windows.properties.deposited.prefixItems[1].type,parentSchema:schema35.properties.windows.properties.deposited.prefixItems[1],data:data19};
 if(vErrors === null){
 vErrors = [err32];
 }
@@ -1776,10 +1763,9 @@ vErrors.push(err32);
 errors++;
 }
 }
-if(len2 > 1){
-let data19 = data17[1];
-if((typeof data19 !== "string") && (!((typeof data19 == "number") && (isFinite(data19))))){
-const err33 = {instancePath:instancePath+"/windows/liquid/1",schemaPath:"#/properties/windows/properties/liquid/prefixItems/1/type",keyword:"type",params:{type: schema35.properties.windows.properties.liquid.prefixItems[1].type},message:"must be string,number",schema:schema35.properties.windows.properties.liquid.prefixItems[1].type,parentSchema:schema35.properties.windows.properties.liquid.prefixItems[1],data:data19};
+const len5 = data17.length;
+if(!(len5 <= 2)){
+const err33 = {instancePath:instancePath+"/windows/deposited",schemaPath:"#/properties/windows/properties/deposited/items",keyword:"items",params:{limit: 2},message:"must NOT have more than 2 items",schema:false,parentSchema:schema35.properties.windows.properties.deposited,data:data17};
 if(vErrors === null){
 vErrors = [err33];
 }
@@ -1789,9 +1775,8 @@ vErrors.push(err33);
 errors++;
 }
 }
-const len3 = data17.length;
-if(!(len3 <= 2)){
-const err34 = {instancePath:instancePath+"/windows/liquid",schemaPath:"#/properties/windows/properties/liquid/items",keyword:"items",params:{limit: 2},message:"must NOT have more than 2 items",schema:false,parentSchema:schema35.properties.windows.properties.liquid,data:data17};
+else {
+const err34 = {instancePath:instancePath+"/windows/deposited",schemaPath:"#/properties/windows/properties/deposited/type",keyword:"type",params:{type: "array"},message:"must be array",schema:schema35.properties.windows.properties.deposited.type,parentSchema:schema35.properties.windows.properties.deposited,data:data17};
 if(vErrors === null){
 vErrors = [err34];
 }
@@ -1801,8 +1786,9 @@ vErrors.push(err34);
 errors++;
 }
 }
+}
 else {
-const err35 = {instancePath:instancePath+"/windows/liquid",schemaPath:"#/properties/windows/properties/liquid/type",keyword:"type",params:{type: "array"},message:"must be array",schema:schema35.properties.windows.properties.liquid.type,parentSchema:schema35.properties.windows.properties.liquid,data:data17};
+const err35 = {instancePath:instancePath+"/windows",schemaPath:"#/properties/windows/type",keyword:"type",params:{type: "object"},message:"must be object",schema:schema35.properties.windows.type,parentSchema:schema35.properties.windows,data:data10};
 if(vErrors === null){
 vErrors = [err35];
 }
@@ -1812,9 +1798,10 @@ vErrors.push(err35);
 errors++;
 }
 }
-}
-else {
-const err36 = {instancePath:instancePath+"/windows",schemaPath:"#/properties/windows/type",keyword:"type",params:{type: "object"},message:"must be object",schema:schema35.properties.windows.type,parentSchema:schema35.properties.windows,data:data13};
+if(data.temperature_calibration !== undefined){
+let data20 = data.temperature_calibration;
+if((typeof data20 !== "string") && (!((typeof data20 == "number") && (isFinite(data20))))){
+const err36 = {instancePath:instancePath+"/temperature_calibration",schemaPath:"#/properties/temperature_calibration/type",keyword:"type",params:{type: schema35.properties.temperature_calibration.type},message:"must be string,number",schema:schema35.properties.temperature_calibration.type,parentSchema:schema35.properties.temperature_calibration,data:data20};
 if(vErrors === null){
 vErrors = [err36];
 }
@@ -1824,10 +1811,10 @@ vErrors.push(err36);
 errors++;
 }
 }
-if(data.notes !== undefined){
-let data20 = data.notes;
-if(typeof data20 !== "string"){
-const err37 = {instancePath:instancePath+"/notes",schemaPath:"#/properties/notes/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema35.properties.notes.type,parentSchema:schema35.properties.notes,data:data20};
+if(data.instrument !== undefined){
+let data21 = data.instrument;
+if(typeof data21 !== "string"){
+const err37 = {instancePath:instancePath+"/instrument",schemaPath:"#/properties/instrument/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema35.properties.instrument.type,parentSchema:schema35.properties.instrument,data:data21};
 if(vErrors === null){
 vErrors = [err37];
 }
@@ -1837,14 +1824,27 @@ vErrors.push(err37);
 errors++;
 }
 }
-}
-else {
-const err38 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object",schema:schema35.type,parentSchema:schema35,data};
+if(data.notes !== undefined){
+let data22 = data.notes;
+if(typeof data22 !== "string"){
+const err38 = {instancePath:instancePath+"/notes",schemaPath:"#/properties/notes/type",keyword:"type",params:{type: "string"},message:"must be string",schema:schema35.properties.notes.type,parentSchema:schema35.properties.notes,data:data22};
 if(vErrors === null){
 vErrors = [err38];
 }
 else {
 vErrors.push(err38);
+}
+errors++;
+}
+}
+}
+else {
+const err39 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object",schema:schema35.type,parentSchema:schema35,data};
+if(vErrors === null){
+vErrors = [err39];
+}
+else {
+vErrors.push(err39);
 }
 errors++;
 }
@@ -1944,7 +1944,7 @@ errors++;
 if(data.data !== undefined){
 let data3 = data.data;
 if(typeof data3 === "string"){
-if(func4(data3) < 1){
+if(func3(data3) < 1){
 const err6 = {instancePath:instancePath+"/data",schemaPath:"#/properties/data/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters",schema:1,parentSchema:schema36.properties.data,data:data3};
 if(vErrors === null){
 vErrors = [err6];
