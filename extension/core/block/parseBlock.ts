@@ -211,46 +211,10 @@ export function blockTextKey(file: string, source: string, fence: FencedBlock): 
   return h.digest();
 }
 
-/** A `key: ?` line of the metadata: the key, where it starts, and the `?` (with a unit after it) to fill in. */
-interface Placeholder {
-  readonly key: string;
-  readonly keyStart: number;
-  readonly valueStart: number;
-  readonly valueEnd: number;
-}
-
-const PLACEHOLDER_LINE = /^([ \t]*)([A-Za-z_][A-Za-z0-9_.-]*):[ \t]+(\?(?:[ \t]+[^\s#?][^#]*?)?)[ \t]*$/;
-
-function findPlaceholders(text: string): Placeholder[] {
-  if (!text.includes('?')) return [];
-  const out: Placeholder[] = [];
-  let start = 0;
-  for (const line of text.split('\n')) {
-    const m = PLACEHOLDER_LINE.exec(line);
-    if (m) {
-      const valueStart = start + line.indexOf(m[3], m[1].length + m[2].length + 1);
-      out.push({ key: m[2], keyStart: start + m[1].length, valueStart, valueEnd: valueStart + m[3].length });
-    }
-    start += line.length + 1;
-  }
-  return out;
-}
-
 /** Does a pointer fit a field's segments ("*" for any array index)? */
 function pointerFits(pointer: string, segments: readonly string[]): boolean {
   const parts = pointer.split('/').slice(1);
   return parts.length === segments.length && segments.every((seg, i) => (seg === '*' ? /^\d+$/.test(parts[i]) : seg === parts[i]));
-}
-
-/** The text with each placeholder's value written over with spaces (offsets kept). */
-function blankPlaceholders(text: string, placeholders: readonly Placeholder[]): string {
-  let out = '';
-  let from = 0;
-  for (const p of placeholders) {
-    out += text.slice(from, p.valueStart) + ' '.repeat(p.valueEnd - p.valueStart);
-    from = p.valueEnd;
-  }
-  return out + text.slice(from);
 }
 
 /** Is body[start, end) the `---` line (three hyphens, then only spaces and tabs)? */
@@ -303,17 +267,14 @@ export function parseBlock(input: ParseInput, data: DataTableSource): ParsedBloc
     start = end + 1;
   }
   const metaText = separator >= 0 ? body.slice(0, Math.max(0, separatorStart - 1)) : body;
-  // `key: ?` (what the quick fix for missing keys writes) is read as an empty value, so that the
-  // lines after it still parse, and reported as a placeholder to fill in.
-  const placeholders = findPlaceholders(metaText);
-  const metadata = parseMetadata(placeholders.length > 0 ? blankPlaceholders(metaText, placeholders) : metaText);
+  const metadata = parseMetadata(metaText);
   const toDoc = (s: Span): Span => map.spanToDocument(s);
-  const placeholderPointers = new Set<string>();
-  for (const [pointer, e] of metadata.spans) if (placeholders.some((p) => p.keyStart === e.key.start)) placeholderPointers.add(pointer);
+  // `key: ?` (what the quick fix for missing keys writes): one error, with an example of the value.
+  const placeholders = metadata.placeholders ?? [];
+  const placeholderPointers = new Set(placeholders.map((p) => p.pointer));
   for (const p of placeholders) {
-    const pointer = [...placeholderPointers].find((q) => metadata.spans.get(q)?.key.start === p.keyStart);
-    const dimension = pointer ? fieldsOf(kind).find((f) => pointerFits(pointer, f.segments))?.dimension : undefined;
-    push(messages.metaPlaceholder(p.key, dimension ? CANONICAL[dimension].example : null), toDoc({ start: p.valueStart, end: p.valueEnd }));
+    const dimension = fieldsOf(kind).find((f) => pointerFits(p.pointer, f.segments))?.dimension;
+    push(messages.metaPlaceholder(keyLabel(p.pointer), dimension ? CANONICAL[dimension].example : null), toDoc(p.span));
   }
 
   const isEmpty = fence.body.trim().length === 0;

@@ -34,6 +34,8 @@ export interface Metadata {
   readonly notAMap: boolean;
   /** Nested deeper than this many levels: none of it was read. */
   readonly tooDeep?: number;
+  /** `key: ?` values (what the quick fix for missing keys writes), read as empty: the pointer and the `?` with any unit after it. */
+  readonly placeholders?: ReadonlyArray<{ readonly pointer: string; readonly span: Span }>;
 }
 
 /** Levels of maps and lists that metadata may nest (real blocks use three). */
@@ -111,8 +113,56 @@ export function readFlatMetadata(text: string): Metadata | null {
   return { data, spans, problems: [], notAMap: false };
 }
 
+/**
+ * The metadata of a block. A `key: ?` placeholder is read as an empty value, so that the lines
+ * after it still parse (YAML would read `? nm/s` as a mapping key and stop there), and listed.
+ */
 export function parseMetadata(text: string): Metadata {
-  return (text.trim().length > 0 ? readFlatMetadata(text) : null) ?? parseYamlMetadata(text);
+  const found = findPlaceholders(text);
+  const read = found.length > 0 ? blankPlaceholders(text, found) : text;
+  const metadata = (read.trim().length > 0 ? readFlatMetadata(read) : null) ?? parseYamlMetadata(read);
+  if (found.length === 0) return metadata;
+  const placeholders: Array<{ pointer: string; span: Span }> = [];
+  for (const [pointer, e] of metadata.spans) {
+    const p = found.find((f) => f.keyStart === e.key.start);
+    if (p) placeholders.push({ pointer, span: { start: p.valueStart, end: p.valueEnd } });
+  }
+  return { ...metadata, placeholders };
+}
+
+/** A `key: ?` line: where its key starts, and the `?` (with a unit after it) to fill in. */
+interface Placeholder {
+  readonly keyStart: number;
+  readonly valueStart: number;
+  readonly valueEnd: number;
+}
+
+const PLACEHOLDER_LINE = /^([ \t]*)([A-Za-z_][A-Za-z0-9_.-]*):[ \t]+(\?(?:[ \t]+[^\s#?][^#]*?)?)[ \t]*$/;
+
+function findPlaceholders(text: string): Placeholder[] {
+  if (!text.includes('?')) return [];
+  const out: Placeholder[] = [];
+  let start = 0;
+  for (const line of text.split('\n')) {
+    const m = PLACEHOLDER_LINE.exec(line);
+    if (m) {
+      const valueStart = start + line.indexOf(m[3], m[1].length + m[2].length + 1);
+      out.push({ keyStart: start + m[1].length, valueStart, valueEnd: valueStart + m[3].length });
+    }
+    start += line.length + 1;
+  }
+  return out;
+}
+
+/** The text with each placeholder's value written over with spaces (offsets kept). */
+function blankPlaceholders(text: string, placeholders: readonly Placeholder[]): string {
+  let out = '';
+  let from = 0;
+  for (const p of placeholders) {
+    out += text.slice(from, p.valueStart) + ' '.repeat(p.valueEnd - p.valueStart);
+    from = p.valueEnd;
+  }
+  return out + text.slice(from);
 }
 
 /** The metadata as the YAML parser reads it. */
