@@ -69,10 +69,34 @@ function fitWhere(c: Curve, keep: (T: number) => boolean): LineFit | null {
   return fitLineWhere(c.T, c.h, (i) => keep(c.T[i]));
 }
 
-function countWhere(T: ArrayLike<number>, keep: (T: number) => boolean): number {
+// The loops over a ramp's rows live in small functions of their own: the large function that
+// calls them is compiled to fast code late in a run, and until then its own loops run slowly.
+
+/** How many temperatures lie in [lo, hi]. */
+function countInRange(T: Float64Array, lo: number, hi: number): number {
   let n = 0;
-  for (let i = 0; i < T.length; i++) if (keep(T[i])) n++;
+  for (let i = 0; i < T.length; i++) if (T[i] >= lo && T[i] <= hi) n++;
   return n;
+}
+
+/** The first row whose value is not positive, or −1. */
+function firstNotPositive(v: Float64Array): number {
+  for (let i = 0; i < v.length; i++) if (!(v[i] > 0)) return i;
+  return -1;
+}
+
+/** The points of a curve whose temperature lies in [lo, hi], in order. */
+function pointsInRange(c: Curve, lo: number, hi: number): Curve {
+  const T = new Float64Array(c.T.length);
+  const h = new Float64Array(c.T.length);
+  let m = 0;
+  for (let i = 0; i < c.T.length; i++) {
+    if (c.T[i] >= lo && c.T[i] <= hi) {
+      T[m] = c.T[i];
+      h[m++] = c.h[i];
+    }
+  }
+  return { T: T.subarray(0, m), h: h.subarray(0, m) };
 }
 
 export interface RampLines {
@@ -200,12 +224,10 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext, choices: R
   const what = hcol.role === 'volume' ? 'specific volume' : 'thickness';
   // (A variant runs only after the nominal analysis found every thickness positive.)
   const hv = hcol.values;
-  const checked = memo?.prepared !== undefined;
-  for (let i = 0; !checked && i < hv.length; i++) {
-    if (!(hv[i] > 0)) {
-      note(messages.rampThicknessNotPositive(hv[i], what), block.rowSpan(i));
-      return empty;
-    }
+  const bad = memo?.prepared !== undefined ? -1 : firstNotPositive(hv);
+  if (bad >= 0) {
+    note(messages.rampThicknessNotPositive(hv[bad], what), block.rowSpan(bad));
+    return empty;
   }
   const nominal = block.quantities.get('/rate')?.value ?? null;
   const prepared = memo?.prepared ?? prepare(Tcol.values, hcol.values, table.byRole.get('time')?.values ?? null, nominal);
@@ -255,7 +277,7 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext, choices: R
     ['deposited', depositedW],
   ] as const) {
     if (!w) continue;
-    const n = countWhere(curve.T, (T) => T >= w[0] && T <= w[1]);
+    const n = countInRange(curve.T, w[0], w[1]);
     if (n < 3) {
       if (!choices.figuresOnly) note(messages.rampEmptyWindow(name, n, w[0], w[1]), block.spanOf(`/windows/${name}`));
       return { analysis: { results, diagnostics }, lines };
@@ -267,20 +289,7 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext, choices: R
     let c = slice(curve, cooling);
     const { lowest, highest } = (memo?.extremes ?? extremes(curve.T, cooling));
     if (memo) memo.extremes = { lowest, highest };
-    if (choices.coolTrim) {
-      const lo = curve.T[lowest] + choices.coolTrim;
-      const hi = curve.T[highest] - choices.coolTrim;
-      const T = new Float64Array(c.T.length);
-      const h = new Float64Array(c.T.length);
-      let m = 0;
-      for (let i = 0; i < c.T.length; i++) {
-        if (c.T[i] >= lo && c.T[i] <= hi) {
-          T[m] = c.T[i];
-          h[m++] = c.h[i];
-        }
-      }
-      c = { T: T.subarray(0, m), h: h.subarray(0, m) };
-    }
+    if (choices.coolTrim) c = pointsInRange(c, curve.T[lowest] + choices.coolTrim, curve.T[highest] - choices.coolTrim);
     const variant = `${choices.coolTrim ?? 0}|${choices.gapScale ?? 1}`;
     // Looked up by every variant, also one that reuses a construction: the engine records each
     // lookup, and they are part of the inputs a results block keeps.

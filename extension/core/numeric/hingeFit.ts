@@ -146,62 +146,72 @@ function hingeSse(p: PrefixSums, k: number): void {
 }
 
 /** Constrained hinge fit with the joint at tb, k = number of points with x ≤ tb, with the inverse of its normal matrix (by the Schur complement on c). */
-function hingeAt(p: PrefixSums, tb: number, k: number): { sse: number; c: number; sg: number; sl: number; inv: number[][] } | null {
+function hingeAt(p: PrefixSums, tb: number, k: number): { sse: number; c: number; sg: number; sl: number; varSlopeLow: number; varSlopeHigh: number } | null {
   const io = p.io;
   io[0] = tb;
   hingeSse(p, k);
   if (!Number.isFinite(io[1])) return null;
-  const [ic, a, b, suu, svv] = [io[5], io[6], io[7], io[8], io[9]];
-  const inv = [
-    [ic, ic * a, ic * b],
-    [ic * a, 1 / suu + ic * a * a, ic * a * b],
-    [ic * b, ic * a * b, 1 / svv + ic * b * b],
-  ];
-  return { sse: io[1], c: io[2], sg: io[3], sl: io[4], inv };
+  const ic = io[5];
+  const a = io[6];
+  const b = io[7];
+  // The slopes' diagonal entries of the inverse, [[ic, ic·a, ic·b], [ic·a, 1/suu + ic·a², ic·a·b], [ic·b, ic·a·b, 1/svv + ic·b²]].
+  return { sse: io[1], c: io[2], sg: io[3], sl: io[4], varSlopeLow: 1 / io[8] + ic * a * a, varSlopeHigh: 1 / io[9] + ic * b * b };
 }
 
 /**
  * (JᵀJ)⁻¹ of the hinge model in (c, s_g, s_l, T_b) at the optimum, k points at or below T_b:
- * ∂h/∂T_b = −s_g below the breakpoint and −s_l above it. Gauss–Jordan with partial pivoting;
- * null when singular.
+ * ∂h/∂T_b = −s_g below the breakpoint and −s_l above it, by Gauss–Jordan with partial pivoting:
+ * its two slope entries, or null when singular.
  */
-function fullCovariance(p: PrefixSums, tb: number, k: number, sg: number, sl: number): number[][] | null {
+function fullCovariance(p: PrefixSums, tb: number, k: number, sg: number, sl: number): { slopeLow: number; slopeHigh: number } | null {
   const n = p.n;
   const su = p.sx[k] - k * tb;
   const sv = p.sx[n] - p.sx[k] - (n - k) * tb;
   const suu = p.sxx[k] - 2 * tb * p.sx[k] + k * tb * tb;
   const svv = p.sxx[n] - p.sxx[k] - 2 * tb * (p.sx[n] - p.sx[k]) + (n - k) * tb * tb;
   const sd = -sg * k - sl * (n - k);
-  const a = [
-    [n, su, sv, sd],
-    [su, suu, 0, -sg * su],
-    [sv, 0, svv, -sl * sv],
-    [sd, -sg * su, -sl * sv, sg * sg * k + sl * sl * (n - k)],
-  ];
-  const inv = [0, 1, 2, 3].map((i) => [0, 1, 2, 3].map((j) => (i === j ? 1 : 0)));
+  // Row-major 4 × 4 in typed arrays: nested literal arrays change their elements kind from fit to
+  // fit (a whole number in one, doubles in the next), and the optimised code then keeps bailing out.
+  const a = COVARIANCE_WORK.subarray(0, 16);
+  const inv = COVARIANCE_WORK.subarray(16, 32);
+  a.set([n, su, sv, sd, su, suu, 0, -sg * su, sv, 0, svv, -sl * sv, sd, -sg * su, -sl * sv, sg * sg * k + sl * sl * (n - k)]);
+  inv.fill(0);
+  for (let i = 0; i < 4; i++) inv[5 * i] = 1;
+  const swapRows = (m: Float64Array, r1: number, r2: number): void => {
+    for (let j = 0; j < 4; j++) {
+      const t = m[4 * r1 + j];
+      m[4 * r1 + j] = m[4 * r2 + j];
+      m[4 * r2 + j] = t;
+    }
+  };
   for (let c = 0; c < 4; c++) {
     let piv = c;
-    for (let r = c + 1; r < 4; r++) if (Math.abs(a[r][c]) > Math.abs(a[piv][c])) piv = r;
-    if (!(Math.abs(a[piv][c]) > 1e-300)) return null;
-    [a[c], a[piv]] = [a[piv], a[c]];
-    [inv[c], inv[piv]] = [inv[piv], inv[c]];
-    const d = a[c][c];
+    for (let r = c + 1; r < 4; r++) if (Math.abs(a[4 * r + c]) > Math.abs(a[4 * piv + c])) piv = r;
+    if (!(Math.abs(a[4 * piv + c]) > 1e-300)) return null;
+    if (piv !== c) {
+      swapRows(a, c, piv);
+      swapRows(inv, c, piv);
+    }
+    const d = a[5 * c];
     for (let j = 0; j < 4; j++) {
-      a[c][j] /= d;
-      inv[c][j] /= d;
+      a[4 * c + j] /= d;
+      inv[4 * c + j] /= d;
     }
     for (let r = 0; r < 4; r++) {
       if (r === c) continue;
-      const f = a[r][c];
+      const f = a[4 * r + c];
       if (f === 0) continue;
       for (let j = 0; j < 4; j++) {
-        a[r][j] -= f * a[c][j];
-        inv[r][j] -= f * inv[c][j];
+        a[4 * r + j] -= f * a[4 * c + j];
+        inv[4 * r + j] -= f * inv[4 * c + j];
       }
     }
   }
-  return inv[1][1] > 0 && inv[2][2] > 0 ? inv : null;
+  return inv[5] > 0 && inv[10] > 0 ? { slopeLow: inv[5], slopeHigh: inv[10] } : null;
 }
+
+/** The two 4 × 4 matrices of `fullCovariance` (a fit keeps neither). */
+const COVARIANCE_WORK = new Float64Array(32);
 
 /** Fits up to this many points reuse one set of work arrays (a fit keeps none of them). */
 const REUSED_WORK_POINTS = 20000;
@@ -244,11 +254,15 @@ function countAtOrBelow(x: Float64Array, v: number): number {
   return lo;
 }
 
-export function fitHinge(xIn: ArrayLike<number>, yIn: ArrayLike<number>, options: HingeOptions = {}): HingeResult {
-  const nMin = options.nMin ?? 8;
-  const minSpan = options.minSpan ?? 10;
+// The loops of a fit live in small functions of their own, which are compiled to fast code
+// after a few fits; the fit itself is compiled much later in a run.
+
+/** x̄ and ȳ of the last `centredSorted`. */
+const MEANS = new Float64Array(2);
+
+/** Writes x and y sorted by x (ties in their order), less their means (written to MEANS). */
+function centredSorted(xIn: ArrayLike<number>, yIn: ArrayLike<number>, x: Float64Array, y: Float64Array): void {
   const n = xIn.length;
-  if (n < 2 * nMin || n < 5) return { ok: false, reason: 'too-few-points' };
   let mx = 0;
   let my = 0;
   for (let i = 0; i < n; i++) {
@@ -257,35 +271,22 @@ export function fitHinge(xIn: ArrayLike<number>, yIn: ArrayLike<number>, options
   }
   mx /= n;
   my /= n;
-  const work = workArrays(n);
-  const x = work[0];
-  const y = work[1];
   const order = sortedOrder(xIn);
   for (let i = 0; i < n; i++) {
     const o = order === null ? i : order === 'reversed' ? n - 1 - i : order[i];
     x[i] = xIn[o] - mx;
     y[i] = yIn[o] - my;
   }
-  const p = new PrefixSums(x, y, work.slice(2));
+  MEANS[0] = mx;
+  MEANS[1] = my;
+}
 
-  const lo = Math.max(x[nMin - 1], x[0] + minSpan);
-  const hi = Math.min(x[n - nMin], x[n - 1] - minSpan);
-  if (!(lo <= hi)) return { ok: false, reason: x[n - 1] - x[0] < 2 * minSpan ? 'too-short-span' : 'too-few-points' };
-
-  // Updated in place (a captured variable would take a new heap number at every write).
-  const best = { sse: Infinity, tb: NaN };
-  /** `below`: the points at or below t, when known. */
-  const consider = (t: number, below: number): void => {
-    if (!(t >= lo && t <= hi)) return;
-    p.io[0] = t;
-    hingeSse(p, below);
-    if (p.io[1] < best.sse) {
-      best.sse = p.io[1];
-      best.tb = t;
-    }
-  };
-  consider(lo, countAtOrBelow(x, lo));
-  consider(hi, countAtOrBelow(x, hi));
+/**
+ * The exact search: the least-squares joint within [lo, hi] at each data x, and within each gap
+ * between data x where the two free lines on either side meet there. Improves `best` in place.
+ */
+function searchBreakpoint(p: PrefixSums, x: Float64Array, lo: number, hi: number, best: { sse: number; tb: number }): void {
+  const n = p.n;
   const left: LineCoefficients = { sse: 0, slope: 0, intercept: 0 };
   const right: LineCoefficients = { sse: 0, slope: 0, intercept: 0 };
   for (let k = 1; k < n; k++) {
@@ -309,6 +310,56 @@ export function fitHinge(xIn: ArrayLike<number>, yIn: ArrayLike<number>, options
       }
     }
   }
+}
+
+/** Durbin–Watson statistic of the hinge's residuals in temperature order (2 when they are all 0). */
+function durbinWatson(x: Float64Array, y: Float64Array, tb: number, c: number, sg: number, sl: number): number {
+  let num = 0;
+  let den = 0;
+  let prev = 0;
+  for (let i = 0; i < x.length; i++) {
+    const u = Math.min(x[i] - tb, 0);
+    const v = Math.max(x[i] - tb, 0);
+    const e = y[i] - (c + sg * u + sl * v);
+    if (i > 0) num += (e - prev) * (e - prev);
+    den += e * e;
+    prev = e;
+  }
+  return den > 0 ? num / den : 2;
+}
+
+export function fitHinge(xIn: ArrayLike<number>, yIn: ArrayLike<number>, options: HingeOptions = {}): HingeResult {
+  const nMin = options.nMin ?? 8;
+  const minSpan = options.minSpan ?? 10;
+  const n = xIn.length;
+  if (n < 2 * nMin || n < 5) return { ok: false, reason: 'too-few-points' };
+  const work = workArrays(n);
+  const x = work[0];
+  const y = work[1];
+  centredSorted(xIn, yIn, x, y);
+  const mx = MEANS[0];
+  const my = MEANS[1];
+  const p = new PrefixSums(x, y, work.slice(2));
+
+  const lo = Math.max(x[nMin - 1], x[0] + minSpan);
+  const hi = Math.min(x[n - nMin], x[n - 1] - minSpan);
+  if (!(lo <= hi)) return { ok: false, reason: x[n - 1] - x[0] < 2 * minSpan ? 'too-short-span' : 'too-few-points' };
+
+  // Updated in place (a captured variable would take a new heap number at every write).
+  const best = { sse: Infinity, tb: NaN };
+  /** `below`: the points at or below t, when known. */
+  const consider = (t: number, below: number): void => {
+    if (!(t >= lo && t <= hi)) return;
+    p.io[0] = t;
+    hingeSse(p, below);
+    if (p.io[1] < best.sse) {
+      best.sse = p.io[1];
+      best.tb = t;
+    }
+  };
+  consider(lo, countAtOrBelow(x, lo));
+  consider(hi, countAtOrBelow(x, hi));
+  searchBreakpoint(p, x, lo, hi, best);
   const tb = best.tb;
   if (!Number.isFinite(tb)) return { ok: false, reason: 'degenerate' };
 
@@ -353,27 +404,16 @@ export function fitHinge(xIn: ArrayLike<number>, yIn: ArrayLike<number>, options
   const low = sse > 0 ? edge(-1) : { at: tb, open: false };
   const high = sse > 0 ? edge(1) : { at: tb, open: false };
 
-  const sseLine = lineOver(p, 0, n, left) ? left.sse : Infinity;
+  const line: LineCoefficients = { sse: 0, slope: 0, intercept: 0 };
+  const sseLine = lineOver(p, 0, n, line) ? line.sse : Infinity;
   const fStat = dof > 0 && sse > 0 ? (sseLine - sse) / (sse / dof) : Infinity;
   const pTransition = Number.isFinite(fStat) ? 1 - fisherFCdf(Math.max(0, fStat), 1, Math.max(1, dof)) : 0;
 
-  // Durbin–Watson on residuals in temperature order.
-  let num = 0;
-  let den = 0;
-  let prev = 0;
-  for (let i = 0; i < n; i++) {
-    const u = Math.min(x[i] - tb, 0);
-    const v = Math.max(x[i] - tb, 0);
-    const e = y[i] - (final.c + final.sg * u + final.sl * v);
-    if (i > 0) num += (e - prev) * (e - prev);
-    den += e * e;
-    prev = e;
-  }
   const nLow = countAtOrBelow(x, tb);
   const full = fullCovariance(p, tb, nLow, final.sg, final.sl);
   // Every figure a plain number before the result is made (its shape stays the same from fit to fit).
-  const seSlopeLow = Math.sqrt(sigma2 * (full ? full[1][1] : final.inv[1][1]));
-  const seSlopeHigh = Math.sqrt(sigma2 * (full ? full[2][2] : final.inv[2][2]));
+  const seSlopeLow = Math.sqrt(sigma2 * (full ? full.slopeLow : final.varSlopeLow));
+  const seSlopeHigh = Math.sqrt(sigma2 * (full ? full.slopeHigh : final.varSlopeHigh));
   const atEdge = tb <= lo + 1e-9 * Math.max(1, Math.abs(lo)) || tb >= hi - 1e-9 * Math.max(1, Math.abs(hi));
   const fit: HingeFit = {
     n,
@@ -391,7 +431,7 @@ export function fitHinge(xIn: ArrayLike<number>, yIn: ArrayLike<number>, options
     atEdge,
     nLow,
     nHigh: n - nLow,
-    durbinWatson: den > 0 ? num / den : 2,
+    durbinWatson: durbinWatson(x, y, tb, final.c, final.sg, final.sl),
     range: [x[0] + mx, x[n - 1] + mx],
   };
   return { ok: true, fit };

@@ -527,15 +527,18 @@ export function parseTable(given: readonly string[] | TableLines, columnsMap: Re
   if (cold) report(messages.tableTemperatureNotPositive(cold.text, cold.header, coldRows), cold.line, cold.start, cold.end);
   if (rows.length === 0 && problems.length === 0) report(messages.tableNoRows(), headerIndex, 0, headerText.length);
 
-  const columns: TableColumn[] = hcells.map((c, j) => {
-    const values = rows.column(j);
+  // Pushed in a loop, not mapped: the array a map returns has one elements kind when the parse runs
+  // optimised and another when it does not, and the optimised parse then kept bailing out.
+  const columns: TableColumn[] = [];
+  const byRole = new Map<ColumnRole, TableColumn>();
+  for (let j = 0; j < hcells.length; j++) {
+    const c = hcells[j];
     const { symbol, unit, convention } = headers[j];
     const role = roles[j];
-    const column: TableColumn = { header: c.text, symbol, writtenUnit: unit, role, unit: units[j], values, headerLine: headerIndex, headerStart: c.start, headerEnd: c.end };
+    const column: TableColumn = { header: c.text, symbol, writtenUnit: unit, role, unit: units[j], values: rows.column(j), headerLine: headerIndex, headerStart: c.start, headerEnd: c.end };
     // Added, not spread in: a spread makes a new shape for every table.
-    return convention && (role === 'heat_flow' || role === 'specific_heat_flow') ? { ...column, convention } : column;
-  });
-  const byRole = new Map<ColumnRole, TableColumn>();
-  for (const col of columns) if (col.role) byRole.set(col.role, col);
+    columns.push(convention && (role === 'heat_flow' || role === 'specific_heat_flow') ? { ...column, convention } : column);
+    if (role) byRole.set(role, columns[j]);
+  }
   return { columns, rowCount: rows.length, rowLines: rows.length === rowLines.length ? rowLines : rowLines.slice(0, rows.length), problems, delimiter, byRole, preamble, unitsLine: unitsIndex >= 0 ? unitsIndex : null };
 }
