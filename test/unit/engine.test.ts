@@ -1,8 +1,13 @@
 import assert from 'node:assert/strict';
+import { setFlagsFromString } from 'node:v8';
+import { runInNewContext } from 'node:vm';
 import { InMemoryHost, NO_FILES, Notebook, toJsonReport, type CancellationToken } from '../../extension/core/index.js';
 import { DEPOSITION_BLOCK, MATERIAL_BLOCK, tableBlock } from '../support/synthetic.js';
 
 // The engine as an editor drives it: pushed files, bounded caches, cancellation, queries.
+
+// A garbage collection on demand, for the memory test (taken from a fresh context).
+setFlagsFromString('--expose-gc');
 
 const RAMP_META = 'film: D-1\nrate: 10 K/min\ndirection: cooling\n';
 function coolingRows(n: number): number[][] {
@@ -36,6 +41,56 @@ describe('Notebook as an editor drives it', () => {
     assert.deepEqual(nb.holdings(), { blocks: 3, analyses: 3, dataFiles: 0 });
     nb.deleteFile('r.md');
     assert.deepEqual(nb.holdings(), { blocks: 2, analyses: 2, dataFiles: 0 });
+  });
+
+  it('keeps no earlier version of the text alive, whichever blocks are edited', () => {
+    // Each block edited in turn, then also prose (a full scan) between the edits. A block read
+    // during an edit once kept the whole text of that edit alive: the heap grew by one text per
+    // edited block. Allowed: the text as first read (the unedited blocks come from it), the
+    // current one, the parses and the analyses, none of which grows with the number of edits.
+    const gc = runInNewContext('gc') as () => void;
+    // The heap only: a text is a string there (typed arrays are freed in the background, later).
+    const used = (): number => {
+      gc();
+      gc();
+      return process.memoryUsage().heapUsed;
+    };
+    const ramps = Array.from({ length: 80 }, (_, i) => `Scan ${i}.\n\n${rampInline(`R-${i}`, 1500)}`);
+    let text = MATERIAL_BLOCK() + DEPOSITION_BLOCK('D-1', 280) + ramps.join('\n');
+    const nb = new Notebook(new InMemoryHost());
+    nb.setFile('n.md', text);
+    const editBlock = (k: number): void => {
+      const block = text.indexOf(`\`\`\`ramp R-${k}\n`);
+      const cell = text.indexOf('\n', text.indexOf('T/K, h/nm', block)) + 3;
+      text = text.slice(0, cell) + (text[cell] === '1' ? '2' : '1') + text.slice(cell + 1);
+      nb.setFile('n.md', text);
+      nb.analyze();
+    };
+    const editProse = (k: number): void => {
+      const prose = text.indexOf(`Scan ${k}.`);
+      text = `${text.slice(0, prose)}A line of prose.\n\n${text.slice(prose)}`;
+      nb.setFile('n.md', text);
+      nb.analyze();
+    };
+    // (The first edits also compile code, which takes memory once.)
+    for (let k = 0; k < 10; k++) editBlock(k);
+    let before = used();
+    for (let k = 10; k < 40; k++) editBlock(k);
+    const inBlocks = used() - before;
+    for (let k = 40; k < 50; k++) {
+      editBlock(k);
+      editProse(k + 1);
+    }
+    // (Each edited block's own copy of its text adds to the heap until the first text is released.)
+    before = used();
+    for (let k = 50; k < 79; k++) {
+      editBlock(k);
+      editProse(k + 1);
+    }
+    const withProse = used() - before;
+    const mb = (n: number): string => `${(n / 2 ** 20).toFixed(1)} MB`;
+    assert.ok(inBlocks < 3 * text.length, `30 edits in blocks grew the heap by ${mb(inBlocks)}, with a ${mb(text.length)} text`);
+    assert.ok(withProse < 3 * text.length, `30 edits in blocks and prose grew the heap by ${mb(withProse)}, with a ${mb(text.length)} text`);
   });
 
   it('reads no data file while prose is typed, and re-parses only the readers of a saved data file', () => {

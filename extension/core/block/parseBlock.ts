@@ -20,6 +20,7 @@ import { quantityFields, type QuantityField } from '../schema/quantityFields.js'
 import { SCHEMAS } from '../schema/schemas.js';
 import { recommendedKeys, validateMetadata } from '../schema/validator.js';
 import { BodyMap } from '../text/bodyMap.js';
+import { detached } from '../text/detached.js';
 import { Hasher, hashText } from '../text/hash.js';
 import { resolveNotebookPath } from '../text/notebookPath.js';
 import { toOneBasedPoint, type Span } from '../text/positions.js';
@@ -192,8 +193,6 @@ export interface ParseInput {
   readonly textKey: string;
   readonly fence: FencedBlock;
   readonly header: BlockHeader;
-  /** The block's source text, from its first fence character to its end. */
-  readonly source: string;
 }
 
 /**
@@ -209,6 +208,28 @@ export function blockTextKey(file: string, source: string, fence: FencedBlock): 
   const h = new Hasher().text(file).char(0).text(source).char(0).integer(fence.infoSpan.start - d);
   for (let i = 0; i < lines.length; i++) h.char(44).integer(lines.start(i) - d).char(46).integer(lines.pad(i));
   return h.digest();
+}
+
+/**
+ * What a block is parsed from. `own`: the block may outlive its document's text (the document is
+ * being edited), so it keeps copies of its strings and none of the document (see text/detached.ts).
+ */
+export function parseInputOf(file: string, textKey: string, fence: FencedBlock, header: BlockHeader, own: boolean): ParseInput {
+  if (!own) return { file, textKey, fence, header };
+  const owned: FencedBlock = {
+    ...fence,
+    rawInfo: detached(fence.rawInfo),
+    lang: fence.lang === null ? null : detached(fence.lang),
+    meta: fence.meta === null ? null : detached(fence.meta),
+    body: detached(fence.body),
+  };
+  const ownedHeader: BlockHeader = {
+    ...header,
+    kind: detached(header.kind) as BlockKind,
+    id: header.id === null ? null : detached(header.id),
+    extra: header.extra ? { text: detached(header.extra.text), span: header.extra.span } : null,
+  };
+  return { file, textKey, fence: owned, header: ownedHeader };
 }
 
 /** Does a pointer fit a field's segments ("*" for any array index)? */

@@ -24,7 +24,7 @@ import { ANALYZERS } from '../analysis/analyzers.js';
 import { finiteFigure, finiteResults } from '../analysis/finiteResults.js';
 import { plausibilityWarnings } from '../analysis/plausibility.js';
 import { Cancelled, type Analysis, type AnalysisContext } from '../analysis/context.js';
-import { blockTextKey, parseBlock, type ParsedBlock, type ParseInput } from '../block/parseBlock.js';
+import { blockTextKey, parseBlock, parseInputOf, type ParsedBlock, type ParseInput } from '../block/parseBlock.js';
 import type { BlockKind } from '../model/blockKind.js';
 import { applyOverrides, at, type Diagnostic, type SeverityOverrides } from '../model/diagnostic.js';
 import { messages } from '../model/messages.js';
@@ -161,8 +161,9 @@ export class Notebook {
         return;
       }
     }
-    const reusable = new Map<string, ParsedBlock>();
-    for (const slot of old?.blocks ?? []) reusable.set(slot.input.textKey, slot.parsed);
+    // A block of the same text keeps its parse and what it was parsed from (its offsets are relative).
+    const reusable = new Map<string, BlockSlot>();
+    for (const slot of old?.blocks ?? []) reusable.set(slot.input.textKey, slot);
     const blocks: BlockSlot[] = [];
     const diagnostics: Diagnostic[] = [];
     try {
@@ -174,9 +175,15 @@ export class Notebook {
           if (near) diagnostics.push({ ...at(messages.blockKindTypo(near.written, near.kind), near.span), fix: { title: `Write "${near.kind}"`, span: near.span, newText: near.kind } });
           continue;
         }
-        const source = text.slice(fence.span.start, fence.span.end);
-        const input: ParseInput = { file: path, textKey: blockTextKey(path, source, fence), fence, header, source };
-        const parsed = reusable.get(input.textKey) ?? this.safeParse(input, diagnostics);
+        const textKey = blockTextKey(path, text.slice(fence.span.start, fence.span.end), fence);
+        const kept = reusable.get(textKey);
+        if (kept) {
+          blocks.push({ ...kept, start: fence.span.start });
+          continue;
+        }
+        // Once the file is being edited, a block read now may outlive this version of the text.
+        const input = parseInputOf(path, textKey, fence, header, old !== undefined);
+        const parsed = this.safeParse(input, diagnostics);
         if (parsed) blocks.push({ parsed, input, start: fence.span.start });
       }
     } catch (e) {
@@ -215,8 +222,7 @@ export class Notebook {
     const one = scanned.length === 1 && scanned[0].span.end === blockText.length && scanned[0].closed && lineStart + scanned[0].span.start === slot.start ? scanned[0] : null;
     const header = one ? readBlockHeader(one) : null;
     if (!one || !header) return null;
-    const source = blockText.slice(one.span.start);
-    const input: ParseInput = { file: path, textKey: blockTextKey(path, source, one), fence: one, header, source };
+    const input = parseInputOf(path, blockTextKey(path, blockText.slice(one.span.start), one), one, header, true);
     const diagnostics: Diagnostic[] = [];
     const parsed = this.safeParse(input, diagnostics);
     if (!parsed || diagnostics.length > 0) return null;
