@@ -1,6 +1,7 @@
 import assert from 'node:assert/strict';
 import fc from 'fast-check';
 import { scanFencedBlocks } from '../../extension/core/scan/fenceScanner.js';
+import { BodyLines, BodyMap } from '../../extension/core/text/bodyMap.js';
 import { oracleFencedBlocks } from '../support/commonmarkOracle.js';
 
 // Lines that exercise the block structure around fences: containers, fences of both kinds and
@@ -30,6 +31,27 @@ describe('scanFencedBlocks on generated documents', () => {
         assert.deepEqual(mine(text), oracleFencedBlocks(text));
       }),
       { numRuns: Number(process.env.RUNS ?? 3000), seed: Number(process.env.SEED ?? 20261202) },
+    );
+  });
+
+  it('gives each body lines that rebuild it, and maps body offsets as a line-by-line map does', () => {
+    fc.assert(
+      fc.property(doc, fc.integer({ min: 0, max: 50 }), (text, shift) => {
+        for (const b of scanFencedBlocks(text)) {
+          const lines = b.bodyLines;
+          const rebuilt = Array.from({ length: lines.length }, (_, i) => ' '.repeat(lines.pad(i)) + text.slice(lines.start(i), lines.end(i))).join('\n');
+          assert.equal(rebuilt, b.body);
+          // The general map, line by line, over the same lines in the scanner's packed store.
+          const store = new BodyLines();
+          for (let i = 0; i < lines.length; i++) store.push(lines.start(i), lines.end(i), lines.pad(i));
+          const general = new BodyMap(store, b.infoSpan.end, shift);
+          const map = new BodyMap(lines, b.infoSpan.end, shift);
+          for (let off = -1; off <= b.body.length + 1; off++) assert.equal(map.toDocument(off), general.toDocument(off), `offset ${off}`);
+          for (let i = -1; i <= lines.length; i++) assert.deepEqual(map.lineSpan(i), general.lineSpan(i));
+          assert.equal(map.lineCount, general.lineCount);
+        }
+      }),
+      { numRuns: Number(process.env.RUNS ?? 2000), seed: Number(process.env.SEED ?? 20261202) },
     );
   });
 });

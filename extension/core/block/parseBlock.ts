@@ -12,14 +12,14 @@ import { messages } from '../model/messages.js';
 import { escapePointer, parseMetadata, valueAt, type Metadata } from '../parse/metadata.js';
 import { parseQuantity, parseTgMultiple, type Quantity } from '../parse/quantity.js';
 import { parseTable, type Table } from '../parse/table.js';
-import { linesOfArray, linesOfText, type TableLines } from '../parse/tableLines.js';
+import { linesOfArray, linesOfIndex, linesOfText, type TableLines } from '../parse/tableLines.js';
 import { CANONICAL, dimensionWords, lookupUnit, suggestUnit } from '../parse/units.js';
 import { ID_PATTERN, type BlockHeader, type BlockKind } from '../scan/blockHeader.js';
 import type { FencedBlock } from '../scan/fenceScanner.js';
 import { quantityFields, type QuantityField } from '../schema/quantityFields.js';
 import { SCHEMAS } from '../schema/schemas.js';
 import { recommendedKeys, validateMetadata } from '../schema/validator.js';
-import { BodyMap } from '../text/bodyMap.js';
+import { BodyMap, ContiguousLines } from '../text/bodyMap.js';
 import { detached } from '../text/detached.js';
 import { Hasher, hashText } from '../text/hash.js';
 import { resolveNotebookPath } from '../text/notebookPath.js';
@@ -216,13 +216,14 @@ export function blockTextKey(file: string, source: string, fence: FencedBlock): 
  */
 export function parseInputOf(file: string, textKey: string, fence: FencedBlock, header: BlockHeader, own: boolean): ParseInput {
   if (!own) return { file, textKey, fence, header };
-  const owned: FencedBlock = {
+  const owned: { -readonly [K in keyof FencedBlock]: FencedBlock[K] } = {
     ...fence,
     rawInfo: detached(fence.rawInfo),
     lang: fence.lang === null ? null : detached(fence.lang),
     meta: fence.meta === null ? null : detached(fence.meta),
     body: detached(fence.body),
   };
+  if (fence.bodyLines instanceof ContiguousLines) owned.bodyLines = new ContiguousLines(owned.body, fence.bodyLines.base);
   const ownedHeader: BlockHeader = {
     ...header,
     kind: detached(header.kind) as BlockKind,
@@ -422,7 +423,9 @@ export function parseBlock(input: ParseInput, data: DataTableSource): ParsedBloc
   let rowLineToDoc: (line: number) => Span = () => headerSpan;
   const columnsMap = (typeof metadata.data.columns === 'object' && metadata.data.columns !== null ? metadata.data.columns : {}) as Record<string, string>;
   // The lines below `---`, read in place (a plain row never becomes a string of its own).
-  const inlineLines = separator < 0 ? null : separatorEnd >= body.length ? linesOfArray([]) : linesOfText(body.slice(separatorEnd + 1));
+  // (A body that is one piece of the document has its lines found already.)
+  const whole = fence.bodyLines instanceof ContiguousLines ? fence.bodyLines : null;
+  const inlineLines = separator < 0 ? null : separatorEnd >= body.length ? linesOfArray([]) : whole ? linesOfIndex(whole.index, separator + 1) : linesOfText(body.slice(separatorEnd + 1));
   const dataValue = metadata.data.data;
   if (KINDS_WITH_DATA.has(kind) && !isEmpty) {
     if (inlineLines && typeof dataValue === 'string') {

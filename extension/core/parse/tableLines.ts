@@ -40,3 +40,15 @@ export function linesOfText(text: string): TableLines {
     end: (i) => index.lineEnd(i),
   };
 }
+
+/** Lines `first` on of a text whose lines are already found. */
+export function linesOfIndex(index: LineIndex, first: number): TableLines {
+  const text = index.text;
+  return {
+    length: Math.max(0, index.lineCount - first),
+    line: (i) => text.slice(index.lineStart(first + i), index.lineEnd(first + i)),
+    text: () => text,
+    start: (i) => index.lineStart(first + i),
+    end: (i) => index.lineEnd(first + i),
+  };
+}

@@ -25,7 +25,7 @@
  * the document when it is never closed.
  */
 import { decodeInfoString } from './infoString.js';
-import { BodyLines, type BodyLine, type BodyLineList } from '../text/bodyMap.js';
+import { BodyLines, ContiguousLines, type BodyLine, type BodyLineList } from '../text/bodyMap.js';
 import type { Span } from '../text/positions.js';
 
 /** One line of a block's body as it maps back into the source. */
@@ -738,11 +738,17 @@ class FenceScanner {
   }
 
   private finishFence(fence: OpenFence, end: number, closed: boolean): void {
-    const lines = this.lines.copyFrom(fence.first);
-    this.lines.truncate(fence.first);
+    const store = this.lines;
     let body = '';
-    if (lines.length > 0 && fence.contiguous) body = this.text.slice(lines.start(0), lines.end(lines.length - 1));
-    else for (let i = 0; i < lines.length; i++) body += (i > 0 ? '\n' : '') + ' '.repeat(lines.pad(i)) + this.text.slice(lines.start(i), lines.end(i));
+    let lines: BodyLineList;
+    if (store.length > fence.first && fence.contiguous) {
+      body = this.text.slice(store.start(fence.first), store.end(store.length - 1));
+      lines = new ContiguousLines(body, store.start(fence.first));
+    } else {
+      lines = store.copyFrom(fence.first);
+      for (let i = 0; i < lines.length; i++) body += (i > 0 ? '\n' : '') + ' '.repeat(lines.pad(i)) + this.text.slice(lines.start(i), lines.end(i));
+    }
+    store.truncate(fence.first);
     const { lang, meta } = decodeInfoString(fence.untrimmedInfo);
     this.blocks.push({
       nested: fence.nested,

@@ -2,7 +2,7 @@
  * Maps offsets in a block's body text (its lines joined by `\n`, container prefixes removed)
  * back to offsets in the markdown document. Body offsets are 0-based; so are document offsets.
  */
-import type { Span } from './positions.js';
+import { LineIndex, type Span } from './positions.js';
 
 /** One line of a fenced block's body, as the scanner found it. */
 export interface BodyLine {
@@ -17,7 +17,8 @@ export interface BodyLine {
 /**
  * The lines of a block's body, packed three integers to a line (no object per line): a 600-row
  * table keeps one array, not 600 objects. The scanner writes the lines of all its fences into one
- * growing store and gives each finished block an exact copy of its own.
+ * growing store and gives each finished block an exact copy of its own, unless the block's body is
+ * one piece of the document (`ContiguousLines`).
  */
 export class BodyLines {
   private data: Int32Array;
@@ -79,6 +80,40 @@ export class BodyLines {
 /** Read access to body lines (the scanner's store, or a plain list in tests). */
 export type BodyLineList = Pick<BodyLines, 'length' | 'start' | 'end' | 'pad'>;
 
+/**
+ * The lines of a body that is one piece of its document (no container prefix, no tab padding,
+ * line feeds only: almost every data block): found in the body text itself, which starts at
+ * `base` in the document. Nothing per line is kept but the index of where lines start, which the
+ * block's table reads too.
+ */
+export class ContiguousLines {
+  readonly index: LineIndex;
+
+  /** `body`: at least one line (the empty string is one empty line). */
+  constructor(
+    readonly body: string,
+    readonly base: number,
+  ) {
+    this.index = new LineIndex(body);
+  }
+
+  get length(): number {
+    return this.index.lineCount;
+  }
+
+  start(i: number): number {
+    return this.base + this.index.lineStart(i);
+  }
+
+  end(i: number): number {
+    return this.base + this.index.lineEnd(i);
+  }
+
+  pad(): number {
+    return 0;
+  }
+}
+
 export class BodyMap {
   /** Body offset where each line starts. */
   private readonly starts: Int32Array;
@@ -87,12 +122,17 @@ export class BodyMap {
    * `shift` is subtracted from every document offset of `lines`: a block's lines are kept as the
    * scanner found them and read relative to the block's first fence character.
    */
+  /** Set when the body is one piece of the document: a body offset is then the same distance in it. */
+  private readonly contiguous: ContiguousLines | null;
+
   constructor(
     private readonly lines: BodyLineList,
     private readonly fallback: number,
     private readonly shift = 0,
   ) {
-    this.starts = new Int32Array(lines.length);
+    this.contiguous = lines instanceof ContiguousLines ? lines : null;
+    this.starts = new Int32Array(this.contiguous ? 0 : lines.length);
+    if (this.contiguous) return;
     let at = 0;
     for (let i = 0; i < lines.length; i++) {
       this.starts[i] = at;
@@ -106,6 +146,8 @@ export class BodyMap {
 
   /** Document offset of a body offset; offsets past a line's end clamp to that line's end. */
   toDocument(bodyOffset: number): number {
+    const whole = this.contiguous;
+    if (whole) return whole.base + Math.min(Math.max(bodyOffset, 0), whole.body.length) - this.shift;
     if (this.lines.length === 0) return this.fallback;
     let lo = 0;
     let hi = this.starts.length - 1;
