@@ -14,7 +14,7 @@ describe('cache-key hash', () => {
 
   it('hashes an integer as the characters of its decimal numeral', () => {
     fc.assert(
-      fc.property(fc.oneof(fc.integer(), fc.integer({ min: 0, max: 100 }), fc.constantFrom(0, 9, 10, 99, 100, 1e15, -1e15, 2 ** 53 - 1)), (n) => {
+      fc.property(fc.oneof(fc.integer(), fc.integer({ min: 0, max: 100 }), fc.constantFrom(0, -0, 9, 10, 99, 100, 2 ** 31 - 1, 2 ** 31, -(2 ** 31), 1e15, -1e15, 2 ** 53 - 1)), (n) => {
         assert.equal(new Hasher().text('a').integer(n).digest(), hashText(`a${n}`));
       }),
       { seed: 20261206, numRuns: 2000 },

@@ -65,10 +65,10 @@ export interface CoolingFigures {
   readonly slopeLiquid: number;
   readonly uSlopeGlass: number;
   readonly uSlopeLiquid: number;
-  /** Text for the method label: construction and windows in K. */
-  readonly label: string;
+  /** Text for the method label: construction and windows in K (made when asked: a window variant's figures are never shown). */
+  readonly label: () => string;
   /** Where the glass and liquid lines (and so α_g and α_l) come from. */
-  readonly lineLabel: string;
+  readonly lineLabel: () => string;
   /** Liquid-cooled glass and supercooled-liquid lines, for the first heating. */
   readonly lc: LineFit | null;
   readonly scl: LineFit | null;
@@ -149,8 +149,8 @@ export function coolingTg(input: CoolingInput, memo: CoolingMemo = {}): CoolingF
       uSlopeGlass: Math.sqrt(g.varSlope),
       uSlopeLiquid: Math.sqrt(l.varSlope),
       model: { tg: 0, slopeGlass: 0, slopeLiquid: 0 },
-      lineLabel: `windows as written, glass ${k1(g0)}–${k1(g1)} K, liquid ${k1(l0)}–${k1(l1)} K`,
-      label: `two windows as written (glass ${k1(g0)}–${k1(g1)} K, liquid ${k1(l0)}–${k1(l1)} K), intersection`,
+      lineLabel: () => `windows as written, glass ${k1(g0)}–${k1(g1)} K, liquid ${k1(l0)}–${k1(l1)} K`,
+      label: () => `two windows as written (glass ${k1(g0)}–${k1(g1)} K, liquid ${k1(l0)}–${k1(l1)} K), intersection`,
       lc: g,
       scl: l,
       warnings,
@@ -207,8 +207,8 @@ export function coolingTg(input: CoolingInput, memo: CoolingMemo = {}): CoolingF
       uSlopeGlass: lines ? Math.sqrt(lines.glass.varSlope) : f.seSlopeLow,
       uSlopeLiquid: lines ? Math.sqrt(lines.liquid.varSlope) : f.seSlopeHigh,
       model: { tg: w.ok ? beyond(f.breakpoint, uHinge, w.tg, w.crossing.se) : 0, slopeGlass: 0, slopeLiquid: 0 },
-      label: `hinge fit (continuous two-line, optimised breakpoint; no curvature found: Durbin–Watson ${f.durbinWatson.toFixed(2)}), 95 % profile-likelihood interval`,
-      lineLabel: w.ok ? windowText(w.glassWindow, w.liquidWindow) : 'hinge fit',
+      label: () => `hinge fit (continuous two-line, optimised breakpoint; no curvature found: Durbin–Watson ${f.durbinWatson.toFixed(2)}), 95 % profile-likelihood interval`,
+      lineLabel: () => (w.ok ? windowText(w.glassWindow, w.liquidWindow) : 'hinge fit'),
       lc: w.ok ? w.glass : lineAway(T, h, (t) => t <= f.breakpoint - gap),
       scl: w.ok ? w.liquid : lineAway(T, h, (t) => t >= f.breakpoint + gap),
       warnings,
@@ -222,13 +222,13 @@ export function coolingTg(input: CoolingInput, memo: CoolingMemo = {}): CoolingF
   if (w.curved) warnings.push({ message: messages.rampWindowsBend(w.glassGap, w.liquidGap), at: 'segment' });
   if (w.glassShort) warnings.push({ message: messages.rampShortGlass(2 * delta0 * scale, w.glassGap), at: 'low' });
   const k = t95(Math.max(1, w.glass.n + w.liquid.n - 4));
-  const why =
+  const why = (): string =>
     f.durbinWatson < DW_BROAD
       ? `Durbin–Watson ${f.durbinWatson.toFixed(2)} of the hinge fit`
       : bend > CURVATURE_T
         ? `a side of the hinge fit bends, quadratic term t = ${bend.toFixed(1)}`
         : `the hinge slopes differ from the window slopes, Hausman z = ${z.toFixed(1)}`;
-  const mText = input.fragility !== null && input.fragility > 0 ? `m = ${Number(m.toPrecision(3))} of the material` : `m = ${m} assumed`;
+  const mText = (): string => (input.fragility !== null && input.fragility > 0 ? `m = ${Number(m.toPrecision(3))} of the material` : `m = ${m} assumed`);
   return {
     ok: true,
     construction: 'windows',
@@ -241,8 +241,8 @@ export function coolingTg(input: CoolingInput, memo: CoolingMemo = {}): CoolingF
     slopeLiquid: w.liquid.slope,
     uSlopeGlass: Math.sqrt(w.glass.varSlope),
     uSlopeLiquid: Math.sqrt(w.liquid.varSlope),
-    lineLabel: windowText(w.glassWindow, w.liquidWindow),
-    label: `two windows iterated from the hinge fit (glass ${k1(w.glassWindow[0])}–${k1(w.glassWindow[1])} K, liquid ${k1(w.liquidWindow[0])}–${k1(w.liquidWindow[1])} K; gaps ${k1(w.glassGap)} K below and ${k1(w.liquidGap)} K above, from δ = 2·Tg/m, ${mText}), intersection; broad transition (${why})`,
+    lineLabel: () => windowText(w.glassWindow, w.liquidWindow),
+    label: () => `two windows iterated from the hinge fit (glass ${k1(w.glassWindow[0])}–${k1(w.glassWindow[1])} K, liquid ${k1(w.liquidWindow[0])}–${k1(w.liquidWindow[1])} K; gaps ${k1(w.glassGap)} K below and ${k1(w.liquidGap)} K above, from δ = 2·Tg/m, ${mText()}), intersection; broad transition (${why()})`,
     lc: w.glass,
     scl: w.liquid,
     warnings,

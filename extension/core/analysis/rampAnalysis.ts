@@ -313,12 +313,12 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext, choices: R
         fig.tg,
         'K',
         // (A variant's figures are compared, never shown: no method text for them.)
-        choices.figuresOnly ? '' : `${fig.label}; cooling segment${rateText}`,
+        choices.figuresOnly ? '' : `${fig.label()}; cooling segment${rateText}`,
         [{ source: 'statistical', value: fig.uTg, note: fig.construction === 'hinge' ? 'profile-likelihood interval / (2·t₀.₉₇₅)' : 'delta method at the intersection of the two lines' }, { source: 'model', value: fig.model.tg, note: modelNote }, calTerm],
         fig.interval,
       );
       const alpha = (slope: number, u: number, model: number, line: string): ResultValue =>
-        budgeted(slope / fig.hAtTg, '1/K', choices.figuresOnly ? '' : `out-of-plane (supported film): slope of the ${line} line / h at Tg; ${fig.lineLabel}`, [
+        budgeted(slope / fig.hAtTg, '1/K', choices.figuresOnly ? '' : `out-of-plane (supported film): slope of the ${line} line / h at Tg; ${fig.lineLabel()}`, [
           { source: 'statistical', value: u / fig.hAtTg, note: 'standard error of the slope / h at Tg' },
           { source: 'model', value: model / fig.hAtTg, note: modelNote },
         ]);

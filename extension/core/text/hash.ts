@@ -41,6 +41,18 @@ export class Hasher {
       this.char(45);
       n = -n;
     }
+    if (n <= 0x7fffffff) {
+      // (Offsets and counts, almost always: digits by integer division, last first.)
+      let m = n | 0;
+      let k = 0;
+      do {
+        const q = (m / 10) | 0;
+        DIGITS[k++] = m - 10 * q;
+        m = q;
+      } while (m > 0);
+      while (k > 0) this.char(48 + DIGITS[--k]);
+      return this;
+    }
     let scale = 1;
     while (scale * 10 <= n) scale *= 10;
     for (; scale >= 1; scale /= 10) {
@@ -59,6 +71,9 @@ export class Hasher {
     return (4294967296 * (2097151 & h2) + (h1 >>> 0)).toString(36);
   }
 }
+
+/** The decimal digits of an integer below 2³¹, last first (`Hasher.integer`). */
+const DIGITS = new Int32Array(10);
 
 export function hashText(text: string, seed = 0): string {
   return new Hasher(seed).text(text).digest();
