@@ -1,7 +1,8 @@
 import assert from 'node:assert/strict';
 import fc from 'fast-check';
 import { scanFencedBlocks } from '../../extension/core/scan/fenceScanner.js';
-import { BodyLines, BodyMap } from '../../extension/core/text/bodyMap.js';
+import { BodyLines, BodyMap, ContiguousLines } from '../../extension/core/text/bodyMap.js';
+import { LineIndex } from '../../extension/core/text/positions.js';
 import { oracleFencedBlocks } from '../support/commonmarkOracle.js';
 
 // Lines that exercise the block structure around fences: containers, fences of both kinds and
@@ -41,6 +42,12 @@ describe('scanFencedBlocks on generated documents', () => {
           const lines = b.bodyLines;
           const rebuilt = Array.from({ length: lines.length }, (_, i) => ' '.repeat(lines.pad(i)) + text.slice(lines.start(i), lines.end(i))).join('\n');
           assert.equal(rebuilt, b.body);
+          if (lines instanceof ContiguousLines) {
+            // The index taken from the scanner is the one the body's own text gives.
+            const own = new LineIndex(b.body);
+            assert.equal(lines.index.lineCount, own.lineCount);
+            for (let i = 0; i < own.lineCount; i++) assert.deepEqual([lines.index.lineStart(i), lines.index.lineEnd(i)], [own.lineStart(i), own.lineEnd(i)]);
+          }
           // The general map, line by line, over the same lines in the scanner's packed store.
           const store = new BodyLines();
           for (let i = 0; i < lines.length; i++) store.push(lines.start(i), lines.end(i), lines.pad(i));

@@ -1,3 +1,6 @@
+/** The steps of a series of up to 20 000 points, reused. */
+let scratch = new Float64Array(1024);
+
 /**
  * The first abrupt fall in a series: a point-to-point drop of more than 10 times the median
  * step that does not come straight back (common practice, no source; used for crystallisation
@@ -8,7 +11,14 @@
 export function firstAbruptDrop(h: ArrayLike<number>, floor = 0): { index: number; drop: number } {
   const n = h.length;
   if (n < 20) return { index: -1, drop: 0 };
-  const steps = new Float64Array(n - 1);
+  // Up to 20 000 steps in a reused array (the selection reorders them; nothing keeps them).
+  if (n - 1 > 20000) return dropIn(h, new Float64Array(n - 1), floor);
+  if (scratch.length < n - 1) scratch = new Float64Array(Math.min(20000, Math.max(n - 1, 2 * scratch.length)));
+  return dropIn(h, scratch.subarray(0, n - 1), floor);
+}
+
+function dropIn(h: ArrayLike<number>, steps: Float64Array, floor: number): { index: number; drop: number } {
+  const n = h.length;
   for (let i = 0; i < n - 1; i++) steps[i] = Math.abs(h[i + 1] - h[i]);
   const typical = Math.max(kthSmallest(steps, Math.floor(steps.length / 2)), floor);
   if (!(typical > 0)) return { index: -1, drop: 0 };

@@ -55,6 +55,8 @@ export interface HingeFit {
 
 export type HingeResult = { readonly ok: true; readonly fit: HingeFit } | { readonly ok: false; readonly reason: 'too-few-points' | 'too-short-span' | 'degenerate' };
 
+const HINGE_IO = new Float64Array(10);
+
 class PrefixSums {
   readonly n: number;
   readonly sx: Float64Array;
@@ -62,8 +64,11 @@ class PrefixSums {
   readonly sy: Float64Array;
   readonly sxy: Float64Array;
   readonly syy: Float64Array;
-  /** The breakpoint given to `hingeSse` and what it found (see there). */
-  readonly io = new Float64Array(10);
+  /**
+   * The breakpoint given to `hingeSse` and what it found (see there). One array for every fit (a
+   * fit never runs inside another): a small typed array costs microseconds to make.
+   */
+  readonly io = HINGE_IO;
 
   /** Sums of x and y (n points each), written into `sums`: five arrays of n + 1. */
   constructor(x: Float64Array, y: Float64Array, sums: readonly Float64Array[]) {

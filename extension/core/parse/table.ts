@@ -254,28 +254,52 @@ const IDENTITY: Conversion = Object.assign((v: number) => v, { factor: 1, offset
 
 /** Columns of numbers that grow as rows are read. */
 class ColumnBuffers {
-  private data: Float64Array[];
+  /** Column j holds rows [j·capacity, j·capacity + length) of one store (one allocation per table). */
+  private store: Float64Array;
+  private capacity: number;
   length = 0;
-  /** `capacity`: the rows expected at most (the lines below the header), so that the columns are made once. */
+  /** `capacity`: the rows expected at most (the lines below the header), so that the store is made once. */
   constructor(
     private readonly ncol: number,
     capacity: number,
   ) {
-    this.data = Array.from({ length: ncol }, () => new Float64Array(Math.max(8, capacity)));
+    this.capacity = Math.max(8, capacity);
+    this.store = new Float64Array(ncol * this.capacity);
   }
   push(row: ArrayLike<number>): void {
-    if (this.length === this.data[0]?.length) this.data = this.data.map((d) => {
-      const bigger = new Float64Array(d.length * 2);
-      bigger.set(d);
-      return bigger;
-    });
-    for (let j = 0; j < this.ncol; j++) this.data[j][this.length] = row[j];
+    if (this.length === this.capacity) {
+      const bigger = new Float64Array(this.ncol * this.capacity * 2);
+      for (let j = 0; j < this.ncol; j++) bigger.set(this.store.subarray(j * this.capacity, (j + 1) * this.capacity), j * this.capacity * 2);
+      this.store = bigger;
+      this.capacity *= 2;
+    }
+    for (let j = 0; j < this.ncol; j++) this.store[j * this.capacity + this.length] = row[j];
     this.length++;
   }
   column(j: number): Float64Array {
-    const d = this.data[j];
-    return d.length === this.length ? d : d.slice(0, this.length);
+    return this.store.subarray(j * this.capacity, j * this.capacity + this.length);
   }
+}
+
+/**
+ * Reads plain rows (numbers and delimiters only) where they lie in their text, from line `i` on,
+ * into `rows`: up to the first line that is not one (or the units line), which it returns. (A loop
+ * of its own, compiled early: the table reader around it is compiled late in a run.)
+ */
+function readPlainRows(lines: TableLines, i: number, unitsIndex: number, delimiter: Delimiter, plain: Float64Array, convertPlain: () => boolean, rows: ColumnBuffers, rowLines: Int32Array): number {
+  const ncol = plain.length;
+  for (; i < lines.length; i++) {
+    if (i === unitsIndex) return i;
+    const source = lines.text(i);
+    const from = lines.start(i);
+    const to = lines.end(i);
+    const first = from < to ? source.charCodeAt(from) : NaN;
+    const startsLikeNumber = (first >= 48 && first <= 57) || first === 45 || first === 43 || first === 46 || first === SPACE || first === TAB;
+    if (!(startsLikeNumber && readPlainRow(source, from, to, delimiter, ncol, plain) && convertPlain())) return i;
+    rows.push(plain);
+    rowLines[rows.length - 1] = i;
+  }
+  return i;
 }
 
 /**
@@ -447,18 +471,9 @@ export function parseTable(given: readonly string[] | TableLines, columnsMap: Re
   let cold: { line: number; start: number; end: number; text: string; header: string } | null = null;
   let coldRows = 0;
   for (let i = headerIndex + 1; i < lines.length; i++) {
+    i = readPlainRows(lines, i, unitsIndex, delimiter, plain, convertPlain, rows, rowLines);
+    if (i >= lines.length) break;
     if (i === unitsIndex) continue;
-    // A plain row is read where it lies in its text; only other lines become strings.
-    const source = lines.text(i);
-    const from = lines.start(i);
-    const to = lines.end(i);
-    const first = from < to ? source.charCodeAt(from) : NaN;
-    const startsLikeNumber = (first >= 48 && first <= 57) || first === 45 || first === 43 || first === 46 || first === SPACE || first === TAB;
-    if (startsLikeNumber && readPlainRow(source, from, to, delimiter, ncol, plain) && convertPlain()) {
-      rows.push(plain);
-      rowLines[rows.length - 1] = i;
-      continue;
-    }
     const text = lines.line(i);
     if (isSkippedLine(text)) continue;
     const cells = splitCells(text, delimiter);

@@ -742,8 +742,9 @@ class FenceScanner {
     let body = '';
     let lines: BodyLineList;
     if (store.length > fence.first && fence.contiguous) {
-      body = this.text.slice(store.start(fence.first), store.end(store.length - 1));
-      lines = new ContiguousLines(body, store.start(fence.first));
+      const base = store.start(fence.first);
+      body = this.text.slice(base, store.end(store.length - 1));
+      lines = new ContiguousLines(body, base, store.startsFrom(fence.first, base));
     } else {
       lines = store.copyFrom(fence.first);
       for (let i = 0; i < lines.length; i++) body += (i > 0 ? '\n' : '') + ' '.repeat(lines.pad(i)) + this.text.slice(lines.start(i), lines.end(i));

@@ -55,6 +55,13 @@ export class BodyLines {
     return new BodyLines(this.data.slice(3 * from, 3 * this.count), this.count - from);
   }
 
+  /** Where lines [from, length) start, less `base`. */
+  startsFrom(from: number, base: number): Int32Array {
+    const out = new Int32Array(this.count - from);
+    for (let i = 0; i < out.length; i++) out[i] = this.data[3 * (from + i)] - base;
+    return out;
+  }
+
   /** Forgets lines from `from` on. */
   truncate(from: number): void {
     this.count = Math.min(this.count, Math.max(0, from));
@@ -89,12 +96,13 @@ export type BodyLineList = Pick<BodyLines, 'length' | 'start' | 'end' | 'pad'>;
 export class ContiguousLines {
   readonly index: LineIndex;
 
-  /** `body`: at least one line (the empty string is one empty line). */
+  /** `body`: at least one line (the empty string is one empty line); `starts`: where they start in it, when known. */
   constructor(
     readonly body: string,
     readonly base: number,
+    starts?: Int32Array,
   ) {
-    this.index = new LineIndex(body);
+    this.index = new LineIndex(body, starts);
   }
 
   get length(): number {

@@ -36,7 +36,15 @@ export class LineIndex {
   /** Offset where each line starts. */
   private readonly lineStarts: Int32Array;
 
-  constructor(readonly text: string) {
+  /** `known`: where the lines start, when already found (the first is 0). */
+  constructor(
+    readonly text: string,
+    known?: Int32Array,
+  ) {
+    if (known) {
+      this.lineStarts = known;
+      return;
+    }
     if (text.indexOf('\r') < 0) {
       // Line feeds only (almost every file): counted, then placed, by the engine's own search.
       let count = 1;
