@@ -174,7 +174,9 @@ async function dispatch(argv: readonly string[], io: CliIo, rawErr: (text: strin
     }
   }
   if (command === 'analyze') {
-    io.out(terminalJson(json) + '\n');
+    // (Written in two pieces: joined, the megabytes of JSON would be copied once more.)
+    io.out(terminalJson(json));
+    io.out('\n');
   } else {
     const fileCount = json.files.length;
     const blockCount = json.files.reduce((n, f) => n + f.blocks.length, 0);

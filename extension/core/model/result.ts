@@ -37,8 +37,32 @@ export function result(value: number, unit: string, method: string, uncertainty?
  * terms are left out; an empty budget gives a figure without uncertainty.
  */
 export function budgeted(value: number, unit: string, method: string, terms: readonly UncertaintyTerm[], interval?: readonly [number, number]): ResultValue {
-  const kept = terms.filter((t) => Number.isFinite(t.value) && t.value !== 0).map((t) => ({ ...t, value: Math.abs(t.value) }));
-  kept.sort((a, b) => b.value - a.value);
-  const base = result(value, unit, method, kept.length ? Math.hypot(...kept.map((t) => t.value)) : undefined, interval);
-  return kept.length ? { ...base, budget: kept } : base;
+  const kept: UncertaintyTerm[] = [];
+  for (let i = 0; i < terms.length; i++) {
+    const t = terms[i];
+    if (Number.isFinite(t.value) && t.value !== 0) kept.push({ ...t, value: Math.abs(t.value) });
+  }
+  if (kept.length === 0) return result(value, unit, method, undefined, interval);
+  kept.sort(largestFirst);
+  return { ...result(value, unit, method, rootSumOfSquares(kept), interval), budget: kept };
+}
+
+function largestFirst(a: UncertaintyTerm, b: UncertaintyTerm): number {
+  return b.value - a.value;
+}
+
+/** Math.hypot of the terms' values (the usual few passed as they are: a budget is made for every figure). */
+function rootSumOfSquares(t: readonly UncertaintyTerm[]): number {
+  switch (t.length) {
+    case 1:
+      return Math.hypot(t[0].value);
+    case 2:
+      return Math.hypot(t[0].value, t[1].value);
+    case 3:
+      return Math.hypot(t[0].value, t[1].value, t[2].value);
+    case 4:
+      return Math.hypot(t[0].value, t[1].value, t[2].value, t[3].value);
+    default:
+      return Math.hypot(...t.map((x) => x.value));
+  }
 }

@@ -84,16 +84,32 @@ function invert(cdf: (x: number) => number, p: number, lo: number, hi: number): 
 
 /**
  * Quantiles are asked for again and again with the same few probabilities and degrees of freedom
- * (one per fit of a given size): each is inverted once and kept, up to a bounded number.
+ * (one per fit of a given size): each is inverted once and kept, up to a bounded number. Kept by
+ * number, not by a text key (making such a key cost more than finding the value).
  */
-const quantiles = new Map<string, number>();
-function cachedQuantile(key: string, compute: () => number): number {
-  let v = quantiles.get(key);
+const tQuantiles = new Map<number, Map<number, number>>();
+const fQuantiles = new Map<number, Map<number, Map<number, number>>>();
+let quantileCount = 0;
+
+/** The quantile kept under `key` in `byKey`, computed and kept when not there yet. */
+function kept(byKey: Map<number, number>, key: number, compute: () => number): number {
+  let v = byKey.get(key);
   if (v === undefined) {
     v = compute();
-    if (quantiles.size >= 4096) quantiles.clear();
-    quantiles.set(key, v);
+    if (quantileCount >= 4096) {
+      tQuantiles.clear();
+      fQuantiles.clear();
+      quantileCount = 0;
+    }
+    byKey.set(key, v);
+    quantileCount++;
   }
+  return v;
+}
+
+function level<K, V>(map: Map<K, V>, key: K, make: () => V): V {
+  let v = map.get(key);
+  if (v === undefined) map.set(key, (v = make()));
   return v;
 }
 
@@ -101,13 +117,14 @@ function cachedQuantile(key: string, compute: () => number): number {
 export function studentTQuantile(p: number, df: number): number {
   if (!(df > 0) || !(p > 0 && p < 1)) return NaN;
   if (p < 0.5) return -studentTQuantile(1 - p, df);
-  return cachedQuantile(`t ${p} ${df}`, () => invert((t) => studentTCdf(t, df), p, 0, 10));
+  return kept(level(tQuantiles, p, () => new Map()), df, () => invert((t) => studentTCdf(t, df), p, 0, 10));
 }
 
 /** Quantile of Fisher's F(d1, d2). */
 export function fisherFQuantile(p: number, d1: number, d2: number): number {
   if (!(d1 > 0) || !(d2 > 0) || !(p > 0 && p < 1)) return NaN;
-  return cachedQuantile(`F ${p} ${d1} ${d2}`, () => invert((f) => fisherFCdf(f, d1, d2), p, 0, 10));
+  const byD1 = level(fQuantiles, p, () => new Map<number, Map<number, number>>());
+  return kept(level(byD1, d1, () => new Map()), d2, () => invert((f) => fisherFCdf(f, d1, d2), p, 0, 10));
 }
 
 /** Two-sided 95 % t value. */

@@ -72,17 +72,21 @@ class PrefixSums {
 
   /** Sums of x and y (n points each), written into `sums`: five arrays of n + 1. */
   constructor(x: Float64Array, y: Float64Array, sums: readonly Float64Array[]) {
-    const n = x.length;
-    this.n = n;
+    this.n = x.length;
     [this.sx, this.sxx, this.sy, this.sxy, this.syy] = sums;
-    this.sx[0] = this.sxx[0] = this.sy[0] = this.sxy[0] = this.syy[0] = 0;
-    for (let i = 0; i < n; i++) {
-      this.sx[i + 1] = this.sx[i] + x[i];
-      this.sxx[i + 1] = this.sxx[i] + x[i] * x[i];
-      this.sy[i + 1] = this.sy[i] + y[i];
-      this.sxy[i + 1] = this.sxy[i] + x[i] * y[i];
-      this.syy[i + 1] = this.syy[i] + y[i] * y[i];
-    }
+    fillPrefixSums(x, y, this.sx, this.sxx, this.sy, this.sxy, this.syy);
+  }
+}
+
+/** The running sums of x, x², y, xy and y² (n + 1 each, from 0). (A loop of its own, compiled early.) */
+function fillPrefixSums(x: Float64Array, y: Float64Array, sx: Float64Array, sxx: Float64Array, sy: Float64Array, sxy: Float64Array, syy: Float64Array): void {
+  sx[0] = sxx[0] = sy[0] = sxy[0] = syy[0] = 0;
+  for (let i = 0; i < x.length; i++) {
+    sx[i + 1] = sx[i] + x[i];
+    sxx[i + 1] = sxx[i] + x[i] * x[i];
+    sy[i + 1] = sy[i] + y[i];
+    sxy[i + 1] = sxy[i] + x[i] * y[i];
+    syy[i + 1] = syy[i] + y[i] * y[i];
   }
 }
 
