@@ -41,6 +41,9 @@ const PIECES = [
   // A substrate temperature resolved through the material's tg, and a near miss of a kind.
   '```deposition D-4\nmaterial: M-1\nsubstrate_temperature: 0.9 Tg\nrate: 0.1 nm/s\nduration: 100 s\n```\n',
   '```Deposition D-5\nmaterial: M-1\n```\n',
+  // The same block text in a list item and directly in the document (the same text key).
+  '- a list item\n\n  ```material M-3\n  name: listed glass\n  ```\n',
+  '  ```material M-3\n  name: listed glass\n  ```\n',
 ];
 const DATA: Content[] = [csvOf(312), csvOf(318), 'T/K, h/nm\n300, x\n', { ok: false, reason: 'unreadable', detail: 'permission denied' }, { ok: false, reason: 'too-large', size: 1e9 }];
 const FILES = ['a.md', 'b.md', 'days/c.md'];

@@ -93,6 +93,27 @@ describe('Notebook as an editor drives it', () => {
     assert.ok(withProse < 3 * text.length, `30 edits in blocks and prose grew the heap by ${mb(withProse)}, with a ${mb(text.length)} text`);
   });
 
+  it('keeps track of whether a block sits in a list, when the same block text moves in or out of one', () => {
+    // The same text key in a list item and directly in the document: a later edit that unindents
+    // a body line ends the list item (and so the fence) only in the list.
+    const sequences = [
+      ['a\n\n  ```material M-1\n  name: x\n  ```\n', '- a\n\n  ```material M-1\n  name: x\n  ```\n', '- a\n\n  ```material M-1\nname: x\n  ```\n'],
+      // Two blocks of the same text, one in a list item, one after a paragraph.
+      ['1. a\n\n   ```material M-1\n   name: x\n   ```\n\ntext\n\n   ```material M-1\n   name: x\n   ```\n'],
+    ];
+    sequences[1].push(sequences[1][0].replace('text', 'text\n\nmore'), sequences[1][0].replace('text', 'text\n\nmore').replace('   name: x', 'name: x'));
+    for (const texts of sequences) {
+      const warm = new Notebook(new InMemoryHost());
+      for (const t of texts) {
+        warm.setFile('n.md', t);
+        warm.analyze();
+      }
+      const cold = new Notebook(new InMemoryHost());
+      cold.setFile('n.md', texts[texts.length - 1]);
+      assert.deepEqual(warm.analyze(), cold.analyze());
+    }
+  });
+
   it('reads no data file while prose is typed, and re-parses only the readers of a saved data file', () => {
     const host = new InMemoryHost(new Map([['data/a.csv', csv()], ['data/b.csv', csv()]]));
     const nb = new Notebook(host);

@@ -257,13 +257,7 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext, choices: R
   }
 
   if (!choices.figuresOnly) scanChecks(block, curve, time, segments, note, rowSpan);
-  const stated = block.metadata.data.direction;
-  if (!choices.figuresOnly && typeof stated === 'string') {
-    const has = (d: string): boolean => segments.some((s) => s.direction === d && s.end - s.start >= 5);
-    const found = has('heating') && has('cooling') ? 'heating and cooling' : has('heating') ? 'heating only' : has('cooling') ? 'cooling only' : 'no temperature change';
-    const ok = stated === 'cycle' ? has('heating') && has('cooling') : has(stated) && !has(stated === 'heating' ? 'cooling' : 'heating');
-    if (!ok) note(messages.rampDirectionMismatch(stated, found), block.spanOf('/direction'));
-  }
+  if (!choices.figuresOnly) directionCheck(block, segments, note);
 
   // Tg from the longest clean cooling segment.
   const coolings = segments.filter((s) => s.direction === 'cooling' && (time || s.backStep === undefined));
@@ -283,54 +277,8 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext, choices: R
       return { analysis: { results, diagnostics }, lines };
     }
   }
-  if (!cooling) {
-    note(messages.rampNoCooling(), block.header.kindSpan);
-  } else {
-    let c = slice(curve, cooling);
-    const { lowest, highest } = (memo?.extremes ?? extremes(curve.T, cooling));
-    if (memo) memo.extremes = { lowest, highest };
-    if (choices.coolTrim) c = pointsInRange(c, curve.T[lowest] + choices.coolTrim, curve.T[highest] - choices.coolTrim);
-    const variant = `${choices.coolTrim ?? 0}|${choices.gapScale ?? 1}`;
-    // Looked up by every variant, also one that reuses a construction: the engine records each
-    // lookup, and they are part of the inputs a results block keeps.
-    const fragility = fragilityOf(block, ctx);
-    let fig = memo?.cooling.get(variant);
-    if (!fig) {
-      let stage = memo?.stages.get(choices.coolTrim ?? 0);
-      if (memo && !stage) memo.stages.set(choices.coolTrim ?? 0, (stage = {}));
-      fig = coolingTg({ T: c.T, h: c.h, glassWindow: glassW, liquidWindow: liquidW, fragility, gapScale: choices.gapScale }, stage);
-      memo?.cooling.set(variant, fig);
-    }
-    const place = (where: 'segment' | 'low' | 'high' | 'windows'): Span =>
-      where === 'windows' ? block.spanOf('/windows') : rowSpan(where === 'low' ? lowest : where === 'high' ? highest : cooling.start);
-    if (!fig.ok) {
-      note(fig.message, place(fig.at));
-    } else {
-      for (const w of fig.warnings) note(w.message, place(w.at));
-      const rateText = nominal ? ` at ${nominal} K/min` : '';
-      const modelNote = 'hinge against the two-window construction, difference beyond its noise, /√3';
-      results.tg = budgeted(
-        fig.tg,
-        'K',
-        // (A variant's figures are compared, never shown: no method text for them.)
-        choices.figuresOnly ? '' : `${fig.label()}; cooling segment${rateText}`,
-        [{ source: 'statistical', value: fig.uTg, note: fig.construction === 'hinge' ? 'profile-likelihood interval / (2·t₀.₉₇₅)' : 'delta method at the intersection of the two lines' }, { source: 'model', value: fig.model.tg, note: modelNote }, calTerm],
-        fig.interval,
-      );
-      const alpha = (slope: number, u: number, model: number, line: string): ResultValue =>
-        budgeted(slope / fig.hAtTg, '1/K', choices.figuresOnly ? '' : `out-of-plane (supported film): slope of the ${line} line / h at Tg; ${fig.lineLabel()}`, [
-          { source: 'statistical', value: u / fig.hAtTg, note: 'standard error of the slope / h at Tg' },
-          { source: 'model', value: model / fig.hAtTg, note: modelNote },
-        ]);
-      results.alpha_glass = alpha(fig.slopeGlass, fig.uSlopeGlass, fig.model.slopeGlass, 'glass');
-      results.alpha_liquid = alpha(fig.slopeLiquid, fig.uSlopeLiquid, fig.model.slopeLiquid, 'liquid');
-      const material = materialOf(block, ctx);
-      const ref = material ? statedTg(material) : null;
-      if (ref && Math.abs(fig.tg - ref.value) > 10) note(messages.rampTgFar(fig.tg, ref.value, nominal ?? NaN), rowSpan(cooling.start));
-      lines.lc = fig.lc ?? undefined;
-      lines.scl = fig.scl ?? undefined;
-    }
-  }
+  if (!cooling) note(messages.rampNoCooling(), block.header.kindSpan);
+  else coolingFigures({ block, ctx, choices, memo, curve, cooling, glassW, liquidW, rowSpan, note, nominal, calTerm }, results, lines);
 
   // First heating of the as-deposited film.
   const first = segments[0];
@@ -346,6 +294,86 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext, choices: R
     return hcol.role === 'volume' ? { ...f, measured: 'volume' } : f;
   };
   return { analysis: { results, diagnostics, figure }, lines };
+}
+
+/** What the cooling Tg needs from the ramp's analysis. */
+interface CoolingPart {
+  readonly block: ParsedBlock;
+  readonly ctx: AnalysisContext;
+  readonly choices: RampChoices;
+  readonly memo: RampMemo | undefined;
+  readonly curve: Curve;
+  /** The longest clean cooling segment. */
+  readonly cooling: Segment;
+  readonly glassW: readonly [number, number] | null;
+  readonly liquidW: readonly [number, number] | null;
+  readonly rowSpan: (i: number) => Span;
+  readonly note: (m: Message, span: Span) => void;
+  /** The rate as written, K/min. */
+  readonly nominal: number | null;
+  readonly calTerm: UncertaintyTerm;
+}
+
+/**
+ * Tg and the expansivities of the glass and the liquid from the cooling segment, into `results`
+ * and `lines`. (A function of its own: V8 compiles a large function late, and slowly.)
+ */
+function coolingFigures(part: CoolingPart, results: Record<string, ResultValue>, lines: { -readonly [K in keyof RampLines]: RampLines[K] }): void {
+  const { block, ctx, choices, memo, curve, cooling, glassW, liquidW, rowSpan, note, nominal, calTerm } = part;
+  let c = slice(curve, cooling);
+  const { lowest, highest } = (memo?.extremes ?? extremes(curve.T, cooling));
+  if (memo) memo.extremes = { lowest, highest };
+  if (choices.coolTrim) c = pointsInRange(c, curve.T[lowest] + choices.coolTrim, curve.T[highest] - choices.coolTrim);
+  const variant = `${choices.coolTrim ?? 0}|${choices.gapScale ?? 1}`;
+  // Looked up by every variant, also one that reuses a construction: the engine records each
+  // lookup, and they are part of the inputs a results block keeps.
+  const fragility = fragilityOf(block, ctx);
+  let fig = memo?.cooling.get(variant);
+  if (!fig) {
+    let stage = memo?.stages.get(choices.coolTrim ?? 0);
+    if (memo && !stage) memo.stages.set(choices.coolTrim ?? 0, (stage = {}));
+    fig = coolingTg({ T: c.T, h: c.h, glassWindow: glassW, liquidWindow: liquidW, fragility, gapScale: choices.gapScale }, stage);
+    memo?.cooling.set(variant, fig);
+  }
+  const place = (where: 'segment' | 'low' | 'high' | 'windows'): Span =>
+    where === 'windows' ? block.spanOf('/windows') : rowSpan(where === 'low' ? lowest : where === 'high' ? highest : cooling.start);
+  if (!fig.ok) {
+    note(fig.message, place(fig.at));
+  } else {
+    for (const w of fig.warnings) note(w.message, place(w.at));
+    const rateText = nominal ? ` at ${nominal} K/min` : '';
+    const modelNote = 'hinge against the two-window construction, difference beyond its noise, /√3';
+    results.tg = budgeted(
+      fig.tg,
+      'K',
+      // (A variant's figures are compared, never shown: no method text for them.)
+      choices.figuresOnly ? '' : `${fig.label()}; cooling segment${rateText}`,
+      [{ source: 'statistical', value: fig.uTg, note: fig.construction === 'hinge' ? 'profile-likelihood interval / (2·t₀.₉₇₅)' : 'delta method at the intersection of the two lines' }, { source: 'model', value: fig.model.tg, note: modelNote }, calTerm],
+      fig.interval,
+    );
+    const alpha = (slope: number, u: number, model: number, line: string): ResultValue =>
+      budgeted(slope / fig.hAtTg, '1/K', choices.figuresOnly ? '' : `out-of-plane (supported film): slope of the ${line} line / h at Tg; ${fig.lineLabel()}`, [
+        { source: 'statistical', value: u / fig.hAtTg, note: 'standard error of the slope / h at Tg' },
+        { source: 'model', value: model / fig.hAtTg, note: modelNote },
+      ]);
+    results.alpha_glass = alpha(fig.slopeGlass, fig.uSlopeGlass, fig.model.slopeGlass, 'glass');
+    results.alpha_liquid = alpha(fig.slopeLiquid, fig.uSlopeLiquid, fig.model.slopeLiquid, 'liquid');
+    const material = materialOf(block, ctx);
+    const ref = material ? statedTg(material) : null;
+    if (ref && Math.abs(fig.tg - ref.value) > 10) note(messages.rampTgFar(fig.tg, ref.value, nominal ?? NaN), rowSpan(cooling.start));
+    lines.lc = fig.lc ?? undefined;
+    lines.scl = fig.scl ?? undefined;
+  }
+}
+
+/** Does the scan run the way `direction` says? */
+function directionCheck(block: ParsedBlock, segments: readonly Segment[], note: (m: Message, span: Span) => void): void {
+  const stated = block.metadata.data.direction;
+  if (typeof stated !== 'string') return;
+  const has = (d: string): boolean => segments.some((s) => s.direction === d && s.end - s.start >= 5);
+  const found = has('heating') && has('cooling') ? 'heating and cooling' : has('heating') ? 'heating only' : has('cooling') ? 'cooling only' : 'no temperature change';
+  const ok = stated === 'cycle' ? has('heating') && has('cooling') : has(stated) && !has(stated === 'heating' ? 'cooling' : 'heating');
+  if (!ok) note(messages.rampDirectionMismatch(stated, found), block.spanOf('/direction'));
 }
 
 /** Rows of the lowest and the highest temperature of a segment. */

@@ -177,13 +177,14 @@ export class Notebook {
         }
         const textKey = blockTextKey(path, text.slice(fence.span.start, fence.span.end), fence);
         const kept = reusable.get(textKey);
-        if (kept) {
+        // Its container (whether it sits in a list or a quote) is not part of a block's text key.
+        if (kept && kept.input.fence.nested === fence.nested && kept.input.fence.closed === fence.closed) {
           blocks.push({ ...kept, start: fence.span.start });
           continue;
         }
         // Once the file is being edited, a block read now may outlive this version of the text.
         const input = parseInputOf(path, textKey, fence, header, old !== undefined);
-        const parsed = this.safeParse(input, diagnostics);
+        const parsed = kept?.parsed ?? this.safeParse(input, diagnostics, fence.span.start);
         if (parsed) blocks.push({ parsed, input, start: fence.span.start });
       }
     } catch (e) {
@@ -224,7 +225,7 @@ export class Notebook {
     if (!one || !header) return null;
     const input = parseInputOf(path, blockTextKey(path, blockText.slice(one.span.start), one), one, header, true);
     const diagnostics: Diagnostic[] = [];
-    const parsed = this.safeParse(input, diagnostics);
+    const parsed = this.safeParse(input, diagnostics, slot.start);
     if (!parsed || diagnostics.length > 0) return null;
     const blocks = old.blocks.map((s, i) => (i === index ? { parsed, input, start: slot.start } : shifted(s)));
     return { text, lines: lazyLines(text), blocks, diagnostics: [] };
@@ -302,18 +303,20 @@ export class Notebook {
     const diagnostics = entry.diagnostics.slice();
     const blocks = entry.blocks.map((slot) => {
       if (slot.parsed.dataPath === null || !matches(slot.parsed.dataPath)) return slot;
-      const parsed = this.safeParse(slot.input, diagnostics);
+      const parsed = this.safeParse(slot.input, diagnostics, slot.start);
       return parsed ? { ...slot, parsed } : slot;
     });
     this.replace(path, { ...entry, blocks, diagnostics });
   }
 
-  private safeParse(input: ParseInput, out: Diagnostic[]): ParsedBlock | null {
+  /** `start`: where the block's fence starts in the file now (the input may come from an earlier version). */
+  private safeParse(input: ParseInput, out: Diagnostic[], start: number): ParsedBlock | null {
     try {
       this.stats.parsed++;
       return parseBlock(input, this.data);
     } catch (e) {
-      out.push(at(messages.internalError(errorText(e)), input.header.kindSpan));
+      const d = start - input.fence.span.start;
+      out.push(at(messages.internalError(errorText(e)), { start: input.header.kindSpan.start + d, end: input.header.kindSpan.end + d }));
       return null;
     }
   }

@@ -96,15 +96,18 @@ function kept(byKey: Map<number, number>, key: number, compute: () => number): n
   let v = byKey.get(key);
   if (v === undefined) {
     v = compute();
-    if (quantileCount >= 4096) {
-      tQuantiles.clear();
-      fQuantiles.clear();
-      quantileCount = 0;
-    }
     byKey.set(key, v);
     quantileCount++;
   }
   return v;
+}
+
+/** Starts the kept quantiles afresh once there are many (before a lookup fetches its maps). */
+function boundQuantiles(): void {
+  if (quantileCount < 4096) return;
+  tQuantiles.clear();
+  fQuantiles.clear();
+  quantileCount = 0;
 }
 
 function level<K, V>(map: Map<K, V>, key: K, make: () => V): V {
@@ -117,12 +120,14 @@ function level<K, V>(map: Map<K, V>, key: K, make: () => V): V {
 export function studentTQuantile(p: number, df: number): number {
   if (!(df > 0) || !(p > 0 && p < 1)) return NaN;
   if (p < 0.5) return -studentTQuantile(1 - p, df);
+  boundQuantiles();
   return kept(level(tQuantiles, p, () => new Map()), df, () => invert((t) => studentTCdf(t, df), p, 0, 10));
 }
 
 /** Quantile of Fisher's F(d1, d2). */
 export function fisherFQuantile(p: number, d1: number, d2: number): number {
   if (!(d1 > 0) || !(d2 > 0) || !(p > 0 && p < 1)) return NaN;
+  boundQuantiles();
   const byD1 = level(fQuantiles, p, () => new Map<number, Map<number, number>>());
   return kept(level(byD1, d1, () => new Map()), d2, () => invert((f) => fisherFCdf(f, d1, d2), p, 0, 10));
 }

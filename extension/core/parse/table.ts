@@ -84,7 +84,11 @@ export interface TableColumn {
 export interface Table {
   readonly columns: readonly TableColumn[];
   readonly rowCount: number;
-  /** Line index (into the given lines) of each kept row. */
+  /**
+   * Line index (into the given lines) of each kept row. Read only: rows on consecutive lines get a
+   * view of one array that every such table shares, and a column's values are a view of the table's
+   * one store.
+   */
   readonly rowLines: Int32Array;
   readonly problems: readonly TableProblem[];
   readonly delimiter: Delimiter;
@@ -279,6 +283,23 @@ class ColumnBuffers {
   column(j: number): Float64Array {
     return this.store.subarray(j * this.capacity, j * this.capacity + this.length);
   }
+}
+
+/** 0, 1, 2, … up to 65 535 (made on first use): rows on consecutive lines (almost every table) share a view of it for their lines. */
+let counting: Int32Array | null = null;
+const COUNTING_LENGTH = 65536;
+
+/** The first `n` row lines, kept as a view of `counting` when they are consecutive (nothing writes to them). */
+function compactRowLines(rowLines: Int32Array, n: number): Int32Array {
+  const first = n > 0 ? rowLines[0] : 0;
+  let consecutive = first + n <= COUNTING_LENGTH;
+  for (let i = 1; i < n && consecutive; i++) consecutive = rowLines[i] === first + i;
+  if (!consecutive) return n === rowLines.length ? rowLines : rowLines.slice(0, n);
+  if (!counting) {
+    counting = new Int32Array(COUNTING_LENGTH);
+    for (let i = 0; i < COUNTING_LENGTH; i++) counting[i] = i;
+  }
+  return counting.subarray(first, first + n);
 }
 
 /**
@@ -555,5 +576,5 @@ export function parseTable(given: readonly string[] | TableLines, columnsMap: Re
     columns.push(convention && (role === 'heat_flow' || role === 'specific_heat_flow') ? { ...column, convention } : column);
     if (role) byRole.set(role, columns[j]);
   }
-  return { columns, rowCount: rows.length, rowLines: rows.length === rowLines.length ? rowLines : rowLines.slice(0, rows.length), problems, delimiter, byRole, preamble, unitsLine: unitsIndex >= 0 ? unitsIndex : null };
+  return { columns, rowCount: rows.length, rowLines: compactRowLines(rowLines, rows.length), problems, delimiter, byRole, preamble, unitsLine: unitsIndex >= 0 ? unitsIndex : null };
 }
