@@ -265,17 +265,8 @@ export function rampDetails(block: ParsedBlock, ctx: AnalysisContext, choices: R
   const glassW = window(block, 'glass');
   const liquidW = window(block, 'liquid');
   const depositedW = window(block, 'deposited');
-  for (const [name, w] of [
-    ['glass', glassW],
-    ['liquid', liquidW],
-    ['deposited', depositedW],
-  ] as const) {
-    if (!w) continue;
-    const n = countInRange(curve.T, w[0], w[1]);
-    if (n < 3) {
-      if (!choices.figuresOnly) note(messages.rampEmptyWindow(name, n, w[0], w[1]), block.spanOf(`/windows/${name}`));
-      return { analysis: { results, diagnostics }, lines };
-    }
+  if (emptyWindow(block, curve.T, 'glass', glassW, choices, note) || emptyWindow(block, curve.T, 'liquid', liquidW, choices, note) || emptyWindow(block, curve.T, 'deposited', depositedW, choices, note)) {
+    return { analysis: { results, diagnostics }, lines };
   }
   if (!cooling) note(messages.rampNoCooling(), block.header.kindSpan);
   else coolingFigures({ block, ctx, choices, memo, curve, cooling, glassW, liquidW, rowSpan, note, nominal, calTerm }, results, lines);
@@ -364,6 +355,15 @@ function coolingFigures(part: CoolingPart, results: Record<string, ResultValue>,
     lines.lc = fig.lc ?? undefined;
     lines.scl = fig.scl ?? undefined;
   }
+}
+
+/** Does a window written in the metadata hold fewer than 3 points (said, unless for a variant)? */
+function emptyWindow(block: ParsedBlock, T: Float64Array, name: 'glass' | 'liquid' | 'deposited', w: readonly [number, number] | null, choices: RampChoices, note: (m: Message, span: Span) => void): boolean {
+  if (!w) return false;
+  const n = countInRange(T, w[0], w[1]);
+  if (n >= 3) return false;
+  if (!choices.figuresOnly) note(messages.rampEmptyWindow(name, n, w[0], w[1]), block.spanOf(`/windows/${name}`));
+  return true;
 }
 
 /** Does the scan run the way `direction` says? */

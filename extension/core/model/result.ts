@@ -26,9 +26,24 @@ export interface ResultValue {
 export type Results = Readonly<Record<string, ResultValue>>;
 
 export function result(value: number, unit: string, method: string, uncertainty?: number, interval?: readonly [number, number]): ResultValue {
-  // A standard uncertainty is a magnitude; propagated formulas may carry the sign of the value.
-  const base: ResultValue = uncertainty !== undefined && Number.isFinite(uncertainty) ? { value, unit, uncertainty: Math.abs(uncertainty), method } : { value, unit, method };
-  return interval && interval.every(Number.isFinite) ? { ...base, interval } : base;
+  return figure(value, unit, method, uncertainty, interval, undefined);
+}
+
+/**
+ * A figure with its keys always in one order (value, unit, uncertainty, method, interval, budget),
+ * the optional ones present only when given: a standard uncertainty is a magnitude (propagated
+ * formulas may carry the sign of the value), an interval only when both ends are finite. Built
+ * directly, not spread: a figure is made for every result of every block.
+ */
+function figure(value: number, unit: string, method: string, uncertainty: number | undefined, interval: readonly [number, number] | undefined, budget: readonly UncertaintyTerm[] | undefined): ResultValue {
+  const u = uncertainty !== undefined && Number.isFinite(uncertainty) ? Math.abs(uncertainty) : undefined;
+  const i = interval && interval.every(Number.isFinite) ? interval : undefined;
+  if (u === undefined) {
+    if (i === undefined) return budget ? { value, unit, method, budget } : { value, unit, method };
+    return budget ? { value, unit, method, interval: i, budget } : { value, unit, method, interval: i };
+  }
+  if (i === undefined) return budget ? { value, unit, uncertainty: u, method, budget } : { value, unit, uncertainty: u, method };
+  return budget ? { value, unit, uncertainty: u, method, interval: i, budget } : { value, unit, uncertainty: u, method, interval: i };
 }
 
 /**
@@ -40,15 +55,26 @@ export function budgeted(value: number, unit: string, method: string, terms: rea
   const kept: UncertaintyTerm[] = [];
   for (let i = 0; i < terms.length; i++) {
     const t = terms[i];
-    if (Number.isFinite(t.value) && t.value !== 0) kept.push({ ...t, value: Math.abs(t.value) });
+    if (!(Number.isFinite(t.value) && t.value !== 0)) continue;
+    const v = Math.abs(t.value);
+    kept.push('note' in t ? { source: t.source, value: v, note: t.note } : { source: t.source, value: v });
   }
-  if (kept.length === 0) return result(value, unit, method, undefined, interval);
-  kept.sort(largestFirst);
-  return { ...result(value, unit, method, rootSumOfSquares(kept), interval), budget: kept };
+  if (kept.length === 0) return figure(value, unit, method, undefined, interval, undefined);
+  largestFirst(kept);
+  return figure(value, unit, method, rootSumOfSquares(kept), interval, kept);
 }
 
-function largestFirst(a: UncertaintyTerm, b: UncertaintyTerm): number {
-  return b.value - a.value;
+/** Sorts terms largest first, equal ones in their order (a stable insertion sort: a budget has a few terms). */
+function largestFirst(terms: UncertaintyTerm[]): void {
+  for (let i = 1; i < terms.length; i++) {
+    const t = terms[i];
+    let j = i - 1;
+    while (j >= 0 && terms[j].value < t.value) {
+      terms[j + 1] = terms[j];
+      j--;
+    }
+    terms[j + 1] = t;
+  }
 }
 
 /** Math.hypot of the terms' values (the usual few passed as they are: a budget is made for every figure). */

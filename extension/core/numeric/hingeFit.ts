@@ -183,7 +183,22 @@ function fullCovariance(p: PrefixSums, tb: number, k: number, sg: number, sl: nu
   // fit (a whole number in one, doubles in the next), and the optimised code then keeps bailing out.
   const a = COVARIANCE_WORK.subarray(0, 16);
   const inv = COVARIANCE_WORK.subarray(16, 32);
-  a.set([n, su, sv, sd, su, suu, 0, -sg * su, sv, 0, svv, -sl * sv, sd, -sg * su, -sl * sv, sg * sg * k + sl * sl * (n - k)]);
+  a[0] = n;
+  a[1] = su;
+  a[2] = sv;
+  a[3] = sd;
+  a[4] = su;
+  a[5] = suu;
+  a[6] = 0;
+  a[7] = -sg * su;
+  a[8] = sv;
+  a[9] = 0;
+  a[10] = svv;
+  a[11] = -sl * sv;
+  a[12] = sd;
+  a[13] = -sg * su;
+  a[14] = -sl * sv;
+  a[15] = sg * sg * k + sl * sl * (n - k);
   inv.fill(0);
   for (let i = 0; i < 4; i++) inv[5 * i] = 1;
   const swapRows = (m: Float64Array, r1: number, r2: number): void => {
