@@ -16,7 +16,7 @@ import { progressBar, type Progress } from './progress.js';
 import { InitRefused, writeStarter } from './init.js';
 import { isOutputError } from './outputError.js';
 import { summaryTable } from './summaryTable.js';
-import { terminalJson, terminalText } from './terminalText.js';
+import { terminalText, writeTerminalJson } from './terminalText.js';
 import { VERSION } from './version.js';
 
 const USAGE = `usage: vitrine <command> PATH... [options]
@@ -174,8 +174,8 @@ async function dispatch(argv: readonly string[], io: CliIo, rawErr: (text: strin
     }
   }
   if (command === 'analyze') {
-    // (Written in two pieces: joined, the megabytes of JSON would be copied once more.)
-    io.out(terminalJson(json));
+    // Block by block: the report is never one string of megabytes.
+    writeTerminalJson(json, io.out);
     io.out('\n');
   } else {
     const fileCount = json.files.length;

@@ -31,6 +31,54 @@ export function terminalText(text: string): string {
  * escapes, which every JSON reader decodes to the same strings.
  */
 export function terminalJson(value: unknown): string {
-  const json = JSON.stringify(value, null, 2);
+  return escapedJson(JSON.stringify(value, null, 2));
+}
+
+function escapedJson(json: string): string {
   return ANY_UNSAFE.test(json) ? json.replace(UNSAFE, (c) => `\\u${c.charCodeAt(0).toString(16).padStart(4, '0')}`) : json;
+}
+
+/**
+ * The text of `terminalJson(value)`, handed to `write` in pieces: the objects and arrays of the
+ * first `depth` levels are written part by part, deeper values whole. A report of megabytes is then
+ * never one string (nor its copy, nor its bytes), and the text is the same, character for
+ * character: `JSON.stringify` with an indent of 2 writes a nested value as it writes it alone,
+ * its lines indented by its depth.
+ */
+export function writeTerminalJson(value: unknown, write: (piece: string) => void, depth = 4): void {
+  const piece = (v: unknown, indent: string): string => {
+    const shown = terminalJson(v);
+    return indent ? shown.replace(/\n/g, `\n${indent}`) : shown;
+  };
+  const walk = (v: unknown, indent: string, level: number): void => {
+    const plain = v !== null && typeof v === 'object' && typeof (v as { toJSON?: unknown }).toJSON !== 'function';
+    if (level >= depth || !plain) {
+      write(piece(v, indent));
+      return;
+    }
+    const inner = `${indent}  `;
+    if (Array.isArray(v)) {
+      if (v.length === 0) return write('[]');
+      write('[');
+      v.forEach((item, i) => {
+        write(`${i > 0 ? ',' : ''}\n${inner}`);
+        // As JSON.stringify writes them in an array: undefined, a function or a symbol as null.
+        if (item === undefined || typeof item === 'function' || typeof item === 'symbol') write('null');
+        else walk(item, inner, level + 1);
+      });
+      write(`\n${indent}]`);
+      return;
+    }
+    // As JSON.stringify writes an object: its own enumerable string keys, without undefined,
+    // function and symbol values.
+    const entries = Object.entries(v as object).filter(([, x]) => x !== undefined && typeof x !== 'function' && typeof x !== 'symbol');
+    if (entries.length === 0) return write('{}');
+    write('{');
+    entries.forEach(([key, x], i) => {
+      write(`${i > 0 ? ',' : ''}\n${inner}${piece(key, '')}: `);
+      walk(x, inner, level + 1);
+    });
+    write(`\n${indent}}`);
+  };
+  walk(value, '', 0);
 }

@@ -1,4 +1,5 @@
 import assert from 'node:assert/strict';
+import fc from 'fast-check';
 import { InMemoryHost, MAX_NOTEBOOK_FILE_BYTES, Notebook, toJsonReport, type FilmSummary, type JsonReport } from '../../extension/core/index.js';
 import { finiteFigure, finiteResults } from '../../extension/core/analysis/finiteResults.js';
 import { messages } from '../../extension/core/model/messages.js';
@@ -7,9 +8,10 @@ import { parseQuantity } from '../../extension/core/parse/quantity.js';
 import { csvField, csvNumberField } from '../../extension/core/report/escape.js';
 import { summaryCsv } from '../../extension/core/report/summaryCsv.js';
 import { resolveNotebookPath } from '../../extension/core/text/notebookPath.js';
-import { terminalJson, terminalText } from '../../extension/cli/terminalText.js';
+import { terminalJson, terminalText, writeTerminalJson } from '../../extension/cli/terminalText.js';
 import { decodeNotebookBytes } from '../../extension/node/notebookText.js';
 import { DEPOSITION_BLOCK, MATERIAL_BLOCK, tableBlock } from '../support/synthetic.js';
+import { propertyOptions } from '../support/propertyOptions.js';
 
 /** The JSON report of one in-memory notebook file (with optional data files). */
 function analyse(text: string, data: Record<string, string> = {}): JsonReport['files'][number] {
@@ -80,6 +82,22 @@ describe('terminalText and terminalJson: control characters are shown, not obeye
     // eslint-disable-next-line no-control-regex -- these are the characters that must not appear
     assert.doesNotMatch(text, /[\0-\x09\x0b-\x1f\x7f-\x9f\u202e]/);
     assert.deepEqual(JSON.parse(text), value);
+  });
+
+  it('writes the same JSON in pieces as whole, whatever the value', () => {
+    const unsafe = fc.constantFrom('\x1b[2J', '\r', '\u202e', '\x9b', 'τ', '\n', '"', '\\');
+    const leaf = fc.oneof(fc.jsonValue({ maxDepth: 2 }), unsafe, fc.constant(undefined), fc.constant(Number.NaN), fc.constant(new Date(0)));
+    const value = fc.letrec((tie) => ({
+      node: fc.oneof({ depthSize: 'small' }, leaf, fc.array(tie('node'), { maxLength: 4 }), fc.dictionary(fc.oneof(fc.string(), unsafe), tie('node'), { maxKeys: 4 })),
+    })).node;
+    fc.assert(
+      fc.property(fc.oneof(fc.dictionary(fc.string(), value), fc.array(value)), fc.integer({ min: 0, max: 5 }), (v, depth) => {
+        const pieces: string[] = [];
+        writeTerminalJson(v, (p) => pieces.push(p), depth);
+        assert.equal(pieces.join(''), terminalJson(v));
+      }),
+      propertyOptions(500, 7),
+    );
   });
 });
 
