@@ -63,6 +63,25 @@ describe('scanFencedBlocks', () => {
     assert.equal(b.closed, true);
   });
 
+  it('takes the body of a fence in the document as remark does, whatever runs of fence characters it holds', () => {
+    // Lines that look like a closing fence and are not, and ones that are.
+    const bodies = [
+      'a\n    ```\nb\n   ```\nafter\n',
+      'a ```\n``` b\n`````\nafter\n',
+      'x\n```\n  ```  \nafter\n',
+      '\t```\n ``\n```\t\nafter',
+      'one\ntwo\nthree',
+      'one\n```',
+      '\n\n```\n',
+    ];
+    for (const body of bodies) {
+      for (const open of ['```ramp R-1\n', '````ramp R-1\n', '~~~ramp R-1\n', ' ```ramp R-1\n', '> ```ramp R-1\n']) {
+        const text = `text\n\n${open}${body}`;
+        assert.deepEqual(mine(text), oracleFencedBlocks(text), JSON.stringify(text));
+      }
+    }
+  });
+
   it('handles CRLF line ends', () => {
     const text = '```ramp R-1\r\nfilm: D-1\r\n---\r\nT/K, h/nm\r\n```\r\n';
     assert.deepEqual(mine(text), oracleFencedBlocks(text));

@@ -220,6 +220,10 @@ class FenceScanner {
   run(): FencedBlock[] {
     // Lines [start, end) without their break (LF, CR or CR LF).
     const text = this.text;
+    // Line feeds only: the body of a fence that sits in the document unindented can be taken a
+    // run of lines at a time (`bodyRun`).
+    const feedsOnly = text.indexOf('\r') < 0;
+    const lastLineStart = text.lastIndexOf('\n') + 1;
     let start = 0;
     for (let i = 0; i < text.length; i++) {
       const c = text.charCodeAt(i);
@@ -227,6 +231,13 @@ class FenceScanner {
         this.incorporateLine(start, i);
         if (c === 13 && text.charCodeAt(i + 1) === 10) i++;
         start = i + 1;
+        if (feedsOnly && this.leaf?.kind === 'fenced' && this.containers.length === 1 && this.leaf.fence!.fenceIndent === 0) {
+          const next = this.bodyRun(this.leaf.fence!, start, lastLineStart);
+          if (next > start) {
+            start = next;
+            i = next - 1;
+          }
+        }
       }
     }
     if (start < text.length) this.incorporateLine(start, text.length);
@@ -370,6 +381,38 @@ class FenceScanner {
     this.fenceIndentRemoved = removed > 0;
     this.addFenceLine(fence, start + removed, 0);
     return true;
+  }
+
+  /**
+   * Lines from `start` on of a fence that sits directly in the document with no indentation, in
+   * a text of line feeds only, added as they are, up to the first line that may close the fence
+   * (a run of its fence characters after at most three spaces) or the text's last line: every
+   * line between is a body line whole, and needs no look of its own. Returns where it stopped.
+   */
+  private bodyRun(fence: OpenFence, start: number, lastLineStart: number): number {
+    const text = this.text;
+    const run = fence.fenceChar.repeat(fence.fenceLength);
+    let limit = lastLineStart;
+    for (let p = text.indexOf(run, start); p >= 0 && p < limit; p = text.indexOf(run, p + 1)) {
+      let q = p;
+      while (q > start && p - q < 4 && text.charCodeAt(q - 1) === 32) q--;
+      if ((q === start || text.charCodeAt(q - 1) === 10) && p - q <= 3) {
+        limit = q;
+        break;
+      }
+    }
+    if (limit <= start) return start;
+    const lines = this.lines;
+    let end = start;
+    for (let ls = start; ls < limit; ls = end + 1) {
+      end = text.indexOf('\n', ls);
+      lines.push(ls, end, 0);
+    }
+    this.lineStart = lines.start(lines.length - 1);
+    this.lineEnd = end;
+    this.fenceIndentRemoved = false;
+    fence.lastEnd = end;
+    return limit;
   }
 
   private incorporateLine(start: number, end: number): void {
