@@ -45,7 +45,18 @@ function escapedJson(json: string): string {
  * character: `JSON.stringify` with an indent of 2 writes a nested value as it writes it alone,
  * its lines indented by its depth.
  */
-export function writeTerminalJson(value: unknown, write: (piece: string) => void, depth = 4): void {
+export function writeTerminalJson(value: unknown, out: (piece: string) => void, depth = 4): void {
+  // Pieces gathered up to about 64 K characters a write (a write to a terminal or a file is a system call).
+  let pending: string[] = [];
+  let size = 0;
+  const write = (text: string): void => {
+    pending.push(text);
+    size += text.length;
+    if (size < 65536) return;
+    out(pending.join(''));
+    pending = [];
+    size = 0;
+  };
   const piece = (v: unknown, indent: string): string => {
     const shown = terminalJson(v);
     return indent ? shown.replace(/\n/g, `\n${indent}`) : shown;
@@ -81,4 +92,5 @@ export function writeTerminalJson(value: unknown, write: (piece: string) => void
     write(`\n${indent}}`);
   };
   walk(value, '', 0);
+  if (size > 0) out(pending.join(''));
 }
