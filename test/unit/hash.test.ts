@@ -1,6 +1,7 @@
 import assert from 'node:assert/strict';
 import fc from 'fast-check';
 import { Hasher, hashParts, hashText } from '../../extension/core/text/hash.js';
+import { LineIndex } from '../../extension/core/text/positions.js';
 
 describe('cache-key hash', () => {
   it('hashes parts as the text they make joined by U+0000, without joining them', () => {
@@ -18,6 +19,17 @@ describe('cache-key hash', () => {
         assert.equal(new Hasher().text('a').integer(n).digest(), hashText(`a${n}`));
       }),
       { seed: 20261206, numRuns: 2000 },
+    );
+  });
+
+  it('hashes the layout of lines as ",start.0" for each line, in one loop', () => {
+    fc.assert(
+      fc.property(fc.array(fc.constantFrom('a', '\n', 'bc', '\n\n'), { maxLength: 40 }), fc.oneof(fc.integer({ min: -20, max: 20 }), fc.constantFrom(2 ** 31 - 3, -(2 ** 31))), (pieces, shift) => {
+        const index = new LineIndex(pieces.join(''));
+        const written = Array.from({ length: index.lineCount }, (_, i) => `,${index.lineStart(i) + shift}.0`).join('');
+        assert.equal(new Hasher().text('x').lineLayout(index, shift).digest(), hashText(`x${written}`));
+      }),
+      { seed: 20261207, numRuns: 1000 },
     );
   });
 });

@@ -206,7 +206,8 @@ export function blockTextKey(file: string, source: string, fence: FencedBlock): 
   const d = fence.span.start;
   const lines = fence.bodyLines;
   const h = new Hasher().text(file).char(0).text(source).char(0).integer(fence.infoSpan.start - d);
-  for (let i = 0; i < lines.length; i++) h.char(44).integer(lines.start(i) - d).char(46).integer(lines.pad(i));
+  if (lines instanceof ContiguousLines) h.lineLayout(lines.index, lines.base - d);
+  else for (let i = 0; i < lines.length; i++) h.char(44).integer(lines.start(i) - d).char(46).integer(lines.pad(i));
   return h.digest();
 }
 
