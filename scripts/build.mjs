@@ -2,11 +2,21 @@
 // with esbuild. Type-checking is `npm run typecheck` (tsc --noEmit). `--release` minifies and
 // leaves out source maps (the packaged extension).
 import { copyFile, mkdir, rm } from 'node:fs/promises';
+import path from 'node:path';
 import { build } from 'esbuild';
 
 const release = process.argv.includes('--release');
 // Chunks of earlier builds would otherwise pile up beside the current ones.
 await rm('dist/cli-chunks', { recursive: true, force: true });
+
+// The command line loads the YAML parser when a block's metadata first needs it (see
+// extension/cli/yamlModule.ts); the other bundles keep it inside.
+const lazyYaml = {
+  name: 'lazy-yaml',
+  setup(b) {
+    b.onResolve({ filter: /\/yamlModule\.js$/ }, (args) => (args.importer.endsWith(path.join('extension', 'core', 'parse', 'metadata.ts')) ? { path: path.resolve('extension/cli/yamlModule.ts') } : undefined));
+  },
+};
 
 const common = { bundle: true, platform: 'node', target: 'node20', sourcemap: !release, minify: release, logLevel: 'warning' };
 
@@ -18,6 +28,7 @@ await Promise.all([
     outdir: 'dist',
     splitting: true,
     chunkNames: 'cli-chunks/[name]-[hash]',
+    plugins: [lazyYaml],
     format: 'esm',
     external: ['@resvg/resvg-js'],
     banner: {

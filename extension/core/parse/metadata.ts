@@ -10,7 +10,8 @@
  * library stringifies it. Metadata nested deeper than MAX_METADATA_DEPTH maps and lists is not
  * read at all (`tooDeep`): nothing here or in the library may recurse without bound.
  */
-import { isMap, isScalar, isSeq, parseDocument, type Node as YamlNode } from 'yaml';
+import type { Node as YamlNode } from 'yaml';
+import { yamlModule } from './yamlModule.js';
 import type { Span } from '../text/positions.js';
 
 /** Spans of a key and its value, body offsets. */
@@ -43,6 +44,7 @@ export const MAX_METADATA_DEPTH = 64;
 
 /** Whether a YAML tree nests deeper than `limit` maps and lists, found without recursion. */
 function nestsDeeperThan(root: YamlNode, limit: number): boolean {
+  const { isMap, isSeq } = yamlModule();
   const stack: Array<{ node: unknown; depth: number }> = [{ node: root, depth: 1 }];
   while (stack.length > 0) {
     const { node, depth } = stack.pop()!;
@@ -170,6 +172,7 @@ export function parseYamlMetadata(text: string): Metadata {
   const spans = new Map<string, EntrySpans>();
   const problems: YamlProblem[] = [];
   if (text.trim().length === 0) return { data: {}, spans, problems, notAMap: false };
+  const { isMap, isScalar, isSeq, parseDocument } = yamlModule();
   const doc = parseDocument(text, { uniqueKeys: true, prettyErrors: false, strict: true, logLevel: 'silent' });
   for (const e of doc.errors) {
     const start = Math.min(e.pos[0], text.length);
