@@ -4,7 +4,7 @@
  */
 import type { Diagnostic } from '../model/diagnostic.js';
 import type { NotebookReport } from './notebook.js';
-import { LineIndex, toOneBased, toOneBasedPoint, visibleSpan } from '../text/positions.js';
+import { sparsePositions, toOneBased, toOneBasedPoint, visibleSpan, type Positions } from '../text/positions.js';
 import type { ResultValue } from '../model/result.js';
 
 export interface JsonDiagnostic {
@@ -37,7 +37,7 @@ export interface JsonReport {
   files: JsonFile[];
 }
 
-export function jsonDiagnostic(d: Diagnostic, lines: LineIndex): JsonDiagnostic {
+export function jsonDiagnostic(d: Diagnostic, lines: Positions): JsonDiagnostic {
   const r = toOneBased(lines.rangeOf(visibleSpan(d.span, lines.text.length)));
   const out: JsonDiagnostic = { severity: d.severity, code: d.code, message: d.message, ...r };
   if (d.related) out.related = d.related.map((r) => ({ path: r.path, ...toOneBasedPoint({ line: r.line, character: r.character }), message: r.message }));
@@ -56,7 +56,7 @@ function tidy(v: ResultValue): ResultValue {
 export function toJsonReport(report: NotebookReport, pathPrefix = ''): JsonReport {
   return {
     files: report.files.map((f) => {
-      const lines = new LineIndex(f.text);
+      const lines = sparsePositions(f.text);
       return {
         path: pathPrefix + f.path,
         blocks: f.blocks.map((b) => ({

@@ -116,6 +116,62 @@ export class LineIndex {
   }
 }
 
+/** What turns offsets into positions: a `LineIndex`, or the lighter `sparsePositions`. */
+export interface Positions {
+  readonly text: string;
+  positionAt(offset: number): Position;
+  rangeOf(span: Span): PositionRange;
+}
+
+/** Lines between two kept starts of `SparseLines`. */
+const SPARSE_STRIDE = 64;
+
+/**
+ * Positions in a text of line feeds only, keeping the start of every 64th line and counting the
+ * rest when asked: for a report, which asks for a few hundred positions in megabytes of text.
+ */
+class SparseLines implements Positions {
+  private readonly starts: Int32Array;
+
+  constructor(readonly text: string) {
+    let count = 1;
+    for (let i = text.indexOf('\n'); i >= 0; i = text.indexOf('\n', i + 1)) count++;
+    this.starts = new Int32Array(Math.ceil(count / SPARSE_STRIDE));
+    let line = 0;
+    for (let i = text.indexOf('\n'); i >= 0; i = text.indexOf('\n', i + 1)) {
+      line++;
+      if (line % SPARSE_STRIDE === 0) this.starts[line / SPARSE_STRIDE] = i + 1;
+    }
+  }
+
+  positionAt(offset: number): Position {
+    const clamped = Math.max(0, Math.min(offset, this.text.length));
+    let lo = 0;
+    let hi = this.starts.length - 1;
+    while (lo < hi) {
+      const mid = (lo + hi + 1) >> 1;
+      if (this.starts[mid] <= clamped) lo = mid;
+      else hi = mid - 1;
+    }
+    let line = lo * SPARSE_STRIDE;
+    let start = this.starts[lo];
+    for (let i = this.text.indexOf('\n', start); i >= 0 && i < clamped; i = this.text.indexOf('\n', i + 1)) {
+      line++;
+      start = i + 1;
+    }
+    return { line, character: clamped - start };
+  }
+
+  rangeOf(span: Span): PositionRange {
+    return { start: this.positionAt(span.start), end: this.positionAt(span.end) };
+  }
+}
+
+/** Positions for a few queries in a long text: `SparseLines` when it has line feeds only, else a `LineIndex`. */
+export function sparsePositions(text: string): Positions {
+  return text.indexOf('\r') < 0 ? new SparseLines(text) : new LineIndex(text);
+}
+
 /** The single place where 0-based positions become the 1-based lines and columns users read. */
 export function toOneBased(range: PositionRange): OneBasedRange {
   return {
