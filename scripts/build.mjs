@@ -18,6 +18,16 @@ const lazyYaml = {
   },
 };
 
+// The command line takes node:fs through `require`: imported as a module, node builds a namespace
+// of it, which reads every export (and so loads the streams behind fs.ReadStream) at start.
+const fsByRequire = {
+  name: 'fs-by-require',
+  setup(b) {
+    b.onResolve({ filter: /^node:fs$/ }, (args) => (args.namespace === 'fs-by-require' ? { path: 'node:fs', external: true } : { path: 'node:fs', namespace: 'fs-by-require' }));
+    b.onLoad({ filter: /.*/, namespace: 'fs-by-require' }, () => ({ contents: "module.exports = require('node:fs');", loader: 'js' }));
+  },
+};
+
 const common = { bundle: true, platform: 'node', target: 'node20', sourcemap: !release, minify: release, logLevel: 'warning' };
 
 await Promise.all([
@@ -28,7 +38,7 @@ await Promise.all([
     outdir: 'dist',
     splitting: true,
     chunkNames: 'cli-chunks/[name]-[hash]',
-    plugins: [lazyYaml],
+    plugins: [lazyYaml, fsByRequire],
     format: 'esm',
     external: ['@resvg/resvg-js'],
     banner: {
