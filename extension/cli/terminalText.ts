@@ -57,9 +57,16 @@ export function writeTerminalJson(value: unknown, out: (piece: string) => void, 
     pending = [];
     size = 0;
   };
+  // A value at depth L, as JSON.stringify writes it there: the value wrapped in L arrays, whose
+  // brackets and the indentation before the value are then cut off (L² + 3L characters before it,
+  // L² + L after it). No pass over the value's text to indent it.
   const piece = (v: unknown, indent: string): string => {
-    const shown = terminalJson(v);
-    return indent ? shown.replace(/\n/g, `\n${indent}`) : shown;
+    const L = indent.length / 2;
+    if (L === 0) return terminalJson(v);
+    let wrapped: unknown = v;
+    for (let k = 0; k < L; k++) wrapped = [wrapped];
+    const shown = terminalJson(wrapped);
+    return shown.slice(L * L + 3 * L, shown.length - (L * L + L));
   };
   const walk = (v: unknown, indent: string, level: number): void => {
     const plain = v !== null && typeof v === 'object' && typeof (v as { toJSON?: unknown }).toJSON !== 'function';
