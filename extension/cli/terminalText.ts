@@ -53,7 +53,8 @@ export function writeTerminalJson(value: unknown, out: (piece: string) => void, 
     pending.push(text);
     size += text.length;
     if (size < 65536) return;
-    out(pending.join(''));
+    // Escaped a gathering at a time: escapes are of single characters.
+    out(escapedJson(pending.join('')));
     pending = [];
     size = 0;
   };
@@ -62,11 +63,11 @@ export function writeTerminalJson(value: unknown, out: (piece: string) => void, 
   // L² + L after it). No pass over the value's text to indent it.
   const piece = (v: unknown, indent: string): string => {
     const L = indent.length / 2;
-    if (L === 0) return terminalJson(v);
+    if (L === 0) return JSON.stringify(v, null, 2);
     let wrapped: unknown = v;
     for (let k = 0; k < L; k++) wrapped = [wrapped];
-    const shown = terminalJson(wrapped);
-    return shown.slice(L * L + 3 * L, shown.length - (L * L + L));
+    const json = JSON.stringify(wrapped, null, 2);
+    return json.slice(L * L + 3 * L, json.length - (L * L + L));
   };
   const walk = (v: unknown, indent: string, level: number): void => {
     const plain = v !== null && typeof v === 'object' && typeof (v as { toJSON?: unknown }).toJSON !== 'function';
@@ -99,5 +100,5 @@ export function writeTerminalJson(value: unknown, out: (piece: string) => void, 
     write(`\n${indent}}`);
   };
   walk(value, '', 0);
-  if (size > 0) out(pending.join(''));
+  if (size > 0) out(escapedJson(pending.join('')));
 }
