@@ -55,9 +55,10 @@ export class BodyLines {
     return new BodyLines(this.data.slice(3 * from, 3 * this.count), this.count - from);
   }
 
-  /** Where lines [from, length) start, less `base`. */
-  startsFrom(from: number, base: number): Int32Array {
-    const out = new Int32Array(this.count - from);
+  /** Where lines [from, length) start, less `base`: 16 bits each when they all fit (a body of under 64 K characters). */
+  startsFrom(from: number, base: number): Int32Array | Uint16Array {
+    const last = this.count > from ? this.data[3 * (this.count - 1)] - base : 0;
+    const out = last < 65536 ? new Uint16Array(this.count - from) : new Int32Array(this.count - from);
     for (let i = 0; i < out.length; i++) out[i] = this.data[3 * (from + i)] - base;
     return out;
   }
@@ -100,7 +101,7 @@ export class ContiguousLines {
   constructor(
     readonly body: string,
     readonly base: number,
-    starts?: Int32Array,
+    starts?: Int32Array | Uint16Array,
   ) {
     this.index = new LineIndex(body, starts);
   }

@@ -33,13 +33,13 @@ export function stripBom(text: string): string {
 
 /** Maps offsets to line/character and back for one text. Built once per document version. */
 export class LineIndex {
-  /** Offset where each line starts. */
-  private readonly lineStarts: Int32Array;
+  /** Offset where each line starts (16 bits a line for a text shorter than 65 536 characters). */
+  private readonly lineStarts: Int32Array | Uint16Array;
 
   /** `known`: where the lines start, when already found (the first is 0). */
   constructor(
     readonly text: string,
-    known?: Int32Array,
+    known?: Int32Array | Uint16Array,
   ) {
     if (known) {
       this.lineStarts = known;
