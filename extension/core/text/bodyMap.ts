@@ -2,7 +2,7 @@
  * Maps offsets in a block's body text (its lines joined by `\n`, container prefixes removed)
  * back to offsets in the markdown document. Body offsets are 0-based; so are document offsets.
  */
-import { LineIndex, type Span } from './positions.js';
+import { lastAtOrBelow, LineIndex, type Span } from './positions.js';
 
 /** One line of a fenced block's body, as the scanner found it. */
 export interface BodyLine {
@@ -158,13 +158,7 @@ export class BodyMap {
     const whole = this.contiguous;
     if (whole) return whole.base + Math.min(Math.max(bodyOffset, 0), whole.body.length) - this.shift;
     if (this.lines.length === 0) return this.fallback;
-    let lo = 0;
-    let hi = this.starts.length - 1;
-    while (lo < hi) {
-      const mid = (lo + hi + 1) >> 1;
-      if (this.starts[mid] <= bodyOffset) lo = mid;
-      else hi = mid - 1;
-    }
+    const lo = lastAtOrBelow(this.starts, bodyOffset);
     const column = bodyOffset - this.starts[lo] - this.lines.pad(lo);
     return Math.min(this.lines.start(lo) + Math.max(0, column), this.lines.end(lo)) - this.shift;
   }

@@ -88,16 +88,9 @@ export class LineIndex {
     return end;
   }
 
-  /** The 0-based line holding an offset (binary search). */
+  /** The 0-based line holding an offset. */
   lineAt(offset: number): number {
-    let lo = 0;
-    let hi = this.lineStarts.length - 1;
-    while (lo < hi) {
-      const mid = (lo + hi + 1) >> 1;
-      if (this.lineStarts[mid] <= offset) lo = mid;
-      else hi = mid - 1;
-    }
-    return lo;
+    return lastAtOrBelow(this.lineStarts, offset);
   }
 
   positionAt(offset: number): Position {
@@ -114,6 +107,18 @@ export class LineIndex {
   rangeOf(span: Span): PositionRange {
     return { start: this.positionAt(span.start), end: this.positionAt(span.end) };
   }
+}
+
+/** The last index of an ascending array whose value is at or below `value` (0 when none is). */
+export function lastAtOrBelow(ascending: ArrayLike<number>, value: number): number {
+  let lo = 0;
+  let hi = ascending.length - 1;
+  while (lo < hi) {
+    const mid = (lo + hi + 1) >> 1;
+    if (ascending[mid] <= value) lo = mid;
+    else hi = mid - 1;
+  }
+  return lo;
 }
 
 /** What turns offsets into positions: a `LineIndex`, or the lighter `sparsePositions`. */
@@ -134,25 +139,15 @@ class SparseLines implements Positions {
   private readonly starts: Int32Array;
 
   constructor(readonly text: string) {
-    let count = 1;
-    for (let i = text.indexOf('\n'); i >= 0; i = text.indexOf('\n', i + 1)) count++;
-    this.starts = new Int32Array(Math.ceil(count / SPARSE_STRIDE));
+    const starts = [0];
     let line = 0;
-    for (let i = text.indexOf('\n'); i >= 0; i = text.indexOf('\n', i + 1)) {
-      line++;
-      if (line % SPARSE_STRIDE === 0) this.starts[line / SPARSE_STRIDE] = i + 1;
-    }
+    for (let i = text.indexOf('\n'); i >= 0; i = text.indexOf('\n', i + 1)) if (++line % SPARSE_STRIDE === 0) starts.push(i + 1);
+    this.starts = Int32Array.from(starts);
   }
 
   positionAt(offset: number): Position {
     const clamped = Math.max(0, Math.min(offset, this.text.length));
-    let lo = 0;
-    let hi = this.starts.length - 1;
-    while (lo < hi) {
-      const mid = (lo + hi + 1) >> 1;
-      if (this.starts[mid] <= clamped) lo = mid;
-      else hi = mid - 1;
-    }
+    const lo = lastAtOrBelow(this.starts, clamped);
     let line = lo * SPARSE_STRIDE;
     let start = this.starts[lo];
     for (let i = this.text.indexOf('\n', start); i >= 0 && i < clamped; i = this.text.indexOf('\n', i + 1)) {
