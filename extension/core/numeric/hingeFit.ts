@@ -387,7 +387,8 @@ export function fitHinge(xIn: ArrayLike<number>, yIn: ArrayLike<number>, options
   const tb = best.tb;
   if (!Number.isFinite(tb)) return { ok: false, reason: 'degenerate' };
 
-  const final = hingeAt(p, tb, countAtOrBelow(x, tb));
+  const nLow = countAtOrBelow(x, tb);
+  const final = hingeAt(p, tb, nLow);
   if (!final) return { ok: false, reason: 'degenerate' };
   const dof = n - 4;
   const sse = final.sse;
@@ -433,7 +434,6 @@ export function fitHinge(xIn: ArrayLike<number>, yIn: ArrayLike<number>, options
   const fStat = dof > 0 && sse > 0 ? (sseLine - sse) / (sse / dof) : Infinity;
   const pTransition = Number.isFinite(fStat) ? 1 - fisherFCdf(Math.max(0, fStat), 1, Math.max(1, dof)) : 0;
 
-  const nLow = countAtOrBelow(x, tb);
   const full = fullCovariance(p, tb, nLow, final.sg, final.sl);
   // Every figure a plain number before the result is made (its shape stays the same from fit to fit).
   const seSlopeLow = Math.sqrt(sigma2 * (full ? full.slopeLow : final.varSlopeLow));

@@ -31,14 +31,7 @@ export function linesOfArray(lines: readonly string[]): TableLines {
 
 /** The lines of a text, found once (text/positions.ts); a line becomes a string only when asked for. */
 export function linesOfText(text: string): TableLines {
-  const index = new LineIndex(text);
-  return {
-    length: index.lineCount,
-    line: (i) => text.slice(index.lineStart(i), index.lineEnd(i)),
-    text: () => text,
-    start: (i) => index.lineStart(i),
-    end: (i) => index.lineEnd(i),
-  };
+  return linesOfIndex(new LineIndex(text), 0);
 }
 
 /** Lines `first` on of a text whose lines are already found. */

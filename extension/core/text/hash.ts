@@ -44,15 +44,8 @@ export class Hasher {
       n = -n;
     }
     if (n <= 0x7fffffff) {
-      // (Offsets and counts, almost always: digits by integer division, last first.)
-      let m = n | 0;
-      let k = 0;
-      do {
-        const q = (m / 10) | 0;
-        DIGITS[k++] = m - 10 * q;
-        m = q;
-      } while (m > 0);
-      while (k > 0) this.char(48 + DIGITS[--k]);
+      // (Offsets and counts, almost always.)
+      for (let k = digitsOf(n); k > 0; ) this.char(48 + DIGITS[--k]);
       return this;
     }
     let scale = 1;
@@ -74,7 +67,7 @@ export class Hasher {
     let h1 = this.h1;
     let h2 = this.h2;
     for (let i = 0; i < index.lineCount; i++) {
-      let n = index.lineStart(i) + shift;
+      const n = index.lineStart(i) + shift;
       if (!(n >= 0 && n <= 0x7fffffff)) {
         this.h1 = h1;
         this.h2 = h2;
@@ -85,13 +78,7 @@ export class Hasher {
       }
       h1 = Math.imul(h1 ^ 44, 2654435761);
       h2 = Math.imul(h2 ^ 44, 1597334677);
-      let k = 0;
-      do {
-        const q = (n / 10) | 0;
-        DIGITS[k++] = n - 10 * q;
-        n = q;
-      } while (n > 0);
-      while (k > 0) {
+      for (let k = digitsOf(n); k > 0; ) {
         const ch = 48 + DIGITS[--k];
         h1 = Math.imul(h1 ^ ch, 2654435761);
         h2 = Math.imul(h2 ^ ch, 1597334677);
@@ -113,8 +100,20 @@ export class Hasher {
   }
 }
 
-/** The decimal digits of an integer below 2³¹, last first (`Hasher.integer`). */
+/** The decimal digits of an integer below 2³¹, last first (`digitsOf`). */
 const DIGITS = new Int32Array(10);
+
+/** Writes the decimal digits of 0 ≤ n < 2³¹ to DIGITS, last first (by integer division), and says how many. */
+function digitsOf(n: number): number {
+  let m = n | 0;
+  let k = 0;
+  do {
+    const q = (m / 10) | 0;
+    DIGITS[k++] = m - 10 * q;
+    m = q;
+  } while (m > 0);
+  return k;
+}
 
 export function hashText(text: string, seed = 0): string {
   return new Hasher(seed).text(text).digest();
