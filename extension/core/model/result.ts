@@ -56,8 +56,9 @@ export function budgeted(value: number, unit: string, method: string, terms: rea
   for (let i = 0; i < terms.length; i++) {
     const t = terms[i];
     if (!(Number.isFinite(t.value) && t.value !== 0)) continue;
-    const v = Math.abs(t.value);
-    kept.push('note' in t ? { source: t.source, value: v, note: t.note } : { source: t.source, value: v });
+    // A term is kept as it was given (terms are read-only; most are positive already), or copied with its magnitude.
+    if (t.value > 0) kept.push(t);
+    else kept.push('note' in t ? { source: t.source, value: -t.value, note: t.note } : { source: t.source, value: -t.value });
   }
   if (kept.length === 0) return figure(value, unit, method, undefined, interval, undefined);
   largestFirst(kept);
