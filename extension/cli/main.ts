@@ -9,7 +9,7 @@
  * Exit status: 0 no errors (warnings allowed), 1 errors found, 2 usage or internal failure.
  */
 import * as path from 'node:path';
-import { countDiagnostics, formatDiagnosticLine, summarise, toJsonReport, type JsonReport } from '../core/index.js';
+import { countDiagnostics, formatDiagnosticLine, summarise, toLazyJsonReport, type LazyJsonFile } from '../core/index.js';
 import { loadRoot, rootsOf, RootError, type RootRun } from '../node/notebookRoots.js';
 import { ioErrorText } from '../node/notebookText.js';
 import { progressBar, type Progress } from './progress.js';
@@ -159,22 +159,24 @@ async function dispatch(argv: readonly string[], io: CliIo, rawErr: (text: strin
   const all = runs(paths, io.cwd, null, root);
   if (command === 'check') noteSkipped(all, io);
   const { error: errors, warning: warnings } = totals(all);
-  const json: JsonReport = { files: [] };
+  // Each block's JSON is made when it is written (or its diagnostics printed), then dropped.
+  const json: { files: LazyJsonFile[] } = { files: [] };
   for (const run of all) {
-    const j = toJsonReport(run.report);
+    const j = toLazyJsonReport(run.report);
     json.files.push(...j.files);
+    if (command !== 'check') continue;
     for (const f of j.files) {
       const shown = displayPath(run.root, f.path, io.cwd);
-      const diags = [...f.diagnostics, ...f.blocks.flatMap((b) => b.diagnostics)].sort((a, b) => a.line - b.line || a.column - b.column);
+      const diags = [...f.diagnostics, ...f.blocks.toJSON().flatMap((b) => b.diagnostics)].sort((a, b) => a.line - b.line || a.column - b.column);
       for (const d of diags) {
-        if (command !== 'check' || (flags.has('--quiet') && d.severity !== 'error')) continue;
+        if (flags.has('--quiet') && d.severity !== 'error') continue;
         io.out(formatDiagnosticLine(shown, d) + '\n');
         if (flags.has('--verbose')) for (const r of d.related ?? []) io.out(`  ${displayPath(run.root, r.path, io.cwd)}:${r.line}:${r.column}: ${r.message}\n`);
       }
     }
   }
   if (command === 'analyze') {
-    // Block by block: the report is never one string of megabytes.
+    // Block by block: the report is never one string of megabytes, nor one tree of objects.
     writeTerminalJson(json, io.out);
     io.out('\n');
   } else {

@@ -6,7 +6,7 @@
 export { Notebook, type AnalyzeOptions, type BlockLocation, type BlockReference, type CancellationToken, type MetadataEntry, type NotebookOptions } from './engine/notebook.js';
 export { InMemoryHost, MAX_NOTEBOOK_FILE_BYTES, NO_FILES, type NotebookFileFailure, type NotebookHost, type DataFileRead } from './engine/host.js';
 export { MAX_DATA_FILE_BYTES, type DataFileFailure } from './engine/dataFiles.js';
-export { toJsonReport, formatDiagnosticLine, type JsonReport, type JsonDiagnostic } from './engine/jsonReport.js';
+export { toJsonReport, toLazyJsonReport, JsonList, formatDiagnosticLine, type JsonReport, type JsonDiagnostic, type LazyJsonFile } from './engine/jsonReport.js';
 export { summarise, type FilmSummary } from './engine/summary.js';
 export { SUMMARY_TABLE_COLUMNS, summaryCell, isNumeric, type SummaryColumn } from './engine/summaryColumns.js';
 export { RESULT_CATALOGUE, RESULT_NAMES, catalogueEntry, type CatalogueEntry, type NumberFormat, type Notation, type ResultName } from './model/catalogue.js';

@@ -1,6 +1,6 @@
 import assert from 'node:assert/strict';
 import fc from 'fast-check';
-import { InMemoryHost, MAX_NOTEBOOK_FILE_BYTES, Notebook, toJsonReport, type FilmSummary, type JsonReport } from '../../extension/core/index.js';
+import { InMemoryHost, JsonList, MAX_NOTEBOOK_FILE_BYTES, Notebook, toJsonReport, toLazyJsonReport, type FilmSummary, type JsonReport } from '../../extension/core/index.js';
 import { finiteFigure, finiteResults } from '../../extension/core/analysis/finiteResults.js';
 import { messages } from '../../extension/core/model/messages.js';
 import { MAX_METADATA_DEPTH } from '../../extension/core/parse/metadata.js';
@@ -88,7 +88,15 @@ describe('terminalText and terminalJson: control characters are shown, not obeye
     const unsafe = fc.constantFrom('\x1b[2J', '\r', '\u202e', '\x9b', 'τ', '\n', '"', '\\');
     const leaf = fc.oneof(fc.jsonValue({ maxDepth: 2 }), unsafe, fc.constant(undefined), fc.constant(Number.NaN), fc.constant(new Date(0)));
     const value = fc.letrec((tie) => ({
-      node: fc.oneof({ depthSize: 'small' }, leaf, fc.array(tie('node'), { maxLength: 4 }), fc.dictionary(fc.oneof(fc.string(), unsafe), tie('node'), { maxKeys: 4 })),
+      node: fc.oneof(
+        { depthSize: 'small' },
+        leaf,
+        fc.array(tie('node'), { maxLength: 4 }),
+        // Holes are written as JSON.stringify writes them: null.
+        fc.sparseArray(tie('node'), { maxLength: 4 }),
+        fc.array(tie('node'), { maxLength: 4 }).map((items) => new JsonList(items.length, (i) => items[i])),
+        fc.dictionary(fc.oneof(fc.string(), unsafe), tie('node'), { maxKeys: 4 }),
+      ),
     })).node;
     fc.assert(
       fc.property(fc.oneof(fc.dictionary(fc.string(), value), fc.array(value)), fc.integer({ min: 0, max: 5 }), (v, depth) => {
@@ -98,6 +106,35 @@ describe('terminalText and terminalJson: control characters are shown, not obeye
       }),
       propertyOptions(500, 7),
     );
+  });
+});
+
+describe('the JSON report written block by block', () => {
+  it('makes the items of a list one at a time, as it writes them', () => {
+    let made = 0;
+    const list = new JsonList(2000, (i) => {
+      made++;
+      return { index: i, text: 'x'.repeat(100) };
+    });
+    let madeAtFirstWrite = -1;
+    const pieces: string[] = [];
+    writeTerminalJson({ files: [{ blocks: list }] }, (p) => {
+      if (madeAtFirstWrite < 0) madeAtFirstWrite = made;
+      pieces.push(p);
+    });
+    assert.ok(madeAtFirstWrite > 0 && madeAtFirstWrite < 500, `items made before the first write: ${madeAtFirstWrite}`);
+    assert.equal(made, 2000);
+    assert.deepEqual(JSON.parse(pieces.join('')).files[0].blocks[1999], { index: 1999, text: 'x'.repeat(100) });
+  });
+
+  it('is the same report as the one made at once', () => {
+    const nb = new Notebook(new InMemoryHost(new Map([['ramp.csv', 'T/K, h/nm\n' + Array.from({ length: 40 }, (_, i) => `${340 - i}, ${100 + (i < 20 ? 0.1 : 0.02) * (20 - i)}`).join('\n')]])));
+    nb.setFile('nb.md', `${MATERIAL_BLOCK()}\n${DEPOSITION_BLOCK('D-1', 280)}\n\`\`\`ramp R-1\nfilm: D-1\nrate: 10 K/min\ndata: ramp.csv\n\`\`\`\n\`\`\`ramp R-2\nfilm: D-9\n\`\`\`\n`);
+    const report = nb.analyze();
+    const pieces: string[] = [];
+    writeTerminalJson(toLazyJsonReport(report), (p) => pieces.push(p));
+    assert.equal(pieces.join(''), terminalJson(toJsonReport(report)));
+    assert.ok(toJsonReport(report).files[0].blocks.length >= 4);
   });
 });
 

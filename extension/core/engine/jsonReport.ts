@@ -3,7 +3,7 @@
  * diagnostics with 1-based lines and columns.
  */
 import type { Diagnostic } from '../model/diagnostic.js';
-import type { NotebookReport } from './notebook.js';
+import type { BlockReport, NotebookReport } from './notebook.js';
 import { sparsePositions, toOneBased, toOneBasedPoint, visibleSpan, type Positions } from '../text/positions.js';
 import type { ResultValue } from '../model/result.js';
 
@@ -53,23 +53,51 @@ function tidy(v: ResultValue): ResultValue {
   return v.budget ? { ...withInterval, budget: v.budget.map((t) => ({ ...t, value: r(t.value) })) } : withInterval;
 }
 
-export function toJsonReport(report: NotebookReport, pathPrefix = ''): JsonReport {
+/**
+ * A list whose items are made when they are read. The command line writes the blocks of a file one
+ * at a time from it, so that the report of a notebook of thousands of blocks is never in memory all
+ * at once; as JSON (`toJSON`) it is the array of its items.
+ */
+export class JsonList<T> {
+  constructor(
+    readonly length: number,
+    readonly at: (index: number) => T,
+  ) {}
+  toJSON(): T[] {
+    return Array.from({ length: this.length }, (_, i) => this.at(i));
+  }
+}
+
+/** A file of the report with its blocks made when they are read. */
+export interface LazyJsonFile {
+  path: string;
+  blocks: JsonList<JsonBlock>;
+  diagnostics: JsonDiagnostic[];
+}
+
+/** The report with each file's blocks made when they are read (see JsonList). */
+export function toLazyJsonReport(report: NotebookReport, pathPrefix = ''): { files: LazyJsonFile[] } {
   return {
     files: report.files.map((f) => {
       const lines = sparsePositions(f.text);
+      const block = (b: BlockReport): JsonBlock => ({
+        kind: b.kind,
+        id: b.id,
+        line: toOneBasedPoint(lines.positionAt(b.span.start)).line,
+        results: Object.fromEntries(Object.entries(b.results).map(([k, v]) => [k, tidy(v)])),
+        diagnostics: b.diagnostics.map((d) => jsonDiagnostic(d, lines)),
+      });
       return {
         path: pathPrefix + f.path,
-        blocks: f.blocks.map((b) => ({
-          kind: b.kind,
-          id: b.id,
-          line: toOneBasedPoint(lines.positionAt(b.span.start)).line,
-          results: Object.fromEntries(Object.entries(b.results).map(([k, v]) => [k, tidy(v)])),
-          diagnostics: b.diagnostics.map((d) => jsonDiagnostic(d, lines)),
-        })),
+        blocks: new JsonList(f.blocks.length, (i) => block(f.blocks[i])),
         diagnostics: f.diagnostics.map((d) => jsonDiagnostic(d, lines)),
       };
     }),
   };
+}
+
+export function toJsonReport(report: NotebookReport, pathPrefix = ''): JsonReport {
+  return { files: toLazyJsonReport(report, pathPrefix).files.map((f) => ({ path: f.path, blocks: f.blocks.toJSON(), diagnostics: f.diagnostics })) };
 }
 
 /** `file:line:col: severity: message [code]`, the compiler-style line of `vitrine check`. */
