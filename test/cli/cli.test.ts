@@ -1,8 +1,11 @@
 import assert from 'node:assert/strict';
-import { spawnSync } from 'node:child_process';
+import { spawn, spawnSync } from 'node:child_process';
+import * as fs from 'node:fs';
+import * as os from 'node:os';
 import * as path from 'node:path';
 import { run } from '../support/runCli.js';
 import { REPO } from '../support/loadNotebook.js';
+import { DEPOSITION_BLOCK, MATERIAL_BLOCK } from '../support/synthetic.js';
 
 
 describe('vitrine CLI', () => {
@@ -68,5 +71,22 @@ describe('vitrine CLI', () => {
     const bad = spawnSync(process.execPath, [bin, 'check', 'fixtures/bad'], { cwd: REPO, encoding: 'utf8' });
     assert.equal(bad.status, 1);
     assert.equal(bad.stderr, '');
+  });
+
+  it('stops without a stack trace when the reader of its output goes away (| head)', async function () {
+    const bin = path.join(REPO, 'dist', 'cli.js');
+    // Output well beyond what a pipe holds (64 KB), so that writes go on after the reader has gone.
+    const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'vitrine-pipe-'));
+    after(() => fs.rmSync(dir, { recursive: true, force: true }));
+    fs.writeFileSync(path.join(dir, 'n.md'), MATERIAL_BLOCK() + Array.from({ length: 1500 }, (_, i) => DEPOSITION_BLOCK(`D-${i}`, 250 + (i % 40))).join('\n'));
+    const child = spawn(process.execPath, [bin, 'analyze', '--json', dir], { cwd: REPO, stdio: ['ignore', 'pipe', 'pipe'] });
+    let err = '';
+    child.stderr.on('data', (d: Buffer) => (err += d.toString()));
+    // The first piece read, the pipe is closed, as `head -c 1` does.
+    child.stdout.once('data', () => child.stdout.destroy());
+    const code = await new Promise<number | null>((resolve) => child.on('close', (c) => resolve(c)));
+    if (/Cannot find module/.test(err)) this.skip();
+    assert.equal(err, '');
+    assert.equal(code, 141);
   });
 });
