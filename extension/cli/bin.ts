@@ -14,10 +14,12 @@ for (const stream of [process.stdout, process.stderr]) {
   });
 }
 
-process.exitCode = await runCli(process.argv.slice(2), {
+void runCli(process.argv.slice(2), {
   out: (t) => process.stdout.write(t),
   err: (t) => process.stderr.write(t),
   cwd: process.cwd(),
   errIsTty: process.stderr.isTTY === true,
   ...(now ? { now } : {}),
+}).then((code) => {
+  process.exitCode = code;
 });

@@ -14,7 +14,7 @@ import { fitHinge } from '../../extension/core/numeric/hingeFit.js';
 import { REPO } from '../support/loadNotebook.js';
 import { startServer, uriOf } from '../support/lspClient.js';
 
-const CLI = path.join(REPO, 'dist', 'cli.js');
+const CLI = path.join(REPO, 'dist', 'cli.cjs');
 const MATERIAL = '```material M-1\nname: bench glass\ntg: 315 K\ntg_source: bench\n```\n';
 
 function cooling(i: number, rows: number): string {

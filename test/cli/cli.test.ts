@@ -63,18 +63,20 @@ describe('vitrine CLI', () => {
     }
   });
 
-  it('the built executable runs and sets its exit status', function () {
-    const bin = path.join(REPO, 'dist', 'cli.js');
-    const ok = spawnSync(process.execPath, [bin, 'check', 'fixtures/demo'], { cwd: REPO, encoding: 'utf8' });
-    if (ok.error || (ok.status !== 0 && /Cannot find module/.test(ok.stderr))) this.skip();
-    assert.equal(ok.status, 0, ok.stderr);
-    const bad = spawnSync(process.execPath, [bin, 'check', 'fixtures/bad'], { cwd: REPO, encoding: 'utf8' });
-    assert.equal(bad.status, 1);
-    assert.equal(bad.stderr, '');
+  it('the built executable runs and sets its exit status, also from its earlier path dist/cli.js', function () {
+    for (const name of ['cli.cjs', 'cli.js']) {
+      const bin = path.join(REPO, 'dist', name);
+      const ok = spawnSync(process.execPath, [bin, 'check', 'fixtures/demo'], { cwd: REPO, encoding: 'utf8' });
+      if (ok.error || (ok.status !== 0 && /Cannot find module/.test(ok.stderr))) this.skip();
+      assert.equal(ok.status, 0, ok.stderr);
+      const bad = spawnSync(process.execPath, [bin, 'check', 'fixtures/bad'], { cwd: REPO, encoding: 'utf8' });
+      assert.equal(bad.status, 1, name);
+      assert.equal(bad.stderr, '');
+    }
   });
 
   it('stops without a stack trace when the reader of its output goes away (| head)', async function () {
-    const bin = path.join(REPO, 'dist', 'cli.js');
+    const bin = path.join(REPO, 'dist', 'cli.cjs');
     // Output well beyond what a pipe holds (64 KB), so that writes go on after the reader has gone.
     const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'vitrine-pipe-'));
     after(() => fs.rmSync(dir, { recursive: true, force: true }));
