@@ -6,7 +6,8 @@
  *
  * A directory is a notebook root (every .md below it); a file is analysed with the other
  * markdown files of its folder as its root, so its references resolve.
- * Exit status: 0 no errors (warnings allowed), 1 errors found, 2 usage or internal failure.
+ * Exit status: 0 no errors (warnings allowed), 1 errors found, 2 usage or internal failure,
+ * 141 when the reader of the output goes away (bin.ts).
  */
 import * as path from 'node:path';
 import { countDiagnostics, formatDiagnosticLine, summarise, toLazyJsonReport, type LazyJsonFile } from '../core/index.js';
@@ -51,7 +52,7 @@ node_modules are skipped) and references are resolved across them. A file named 
 whatever its extension, with the other files of its folder, unless --root names the notebook
 folder. report never writes over a notebook file or through a symbolic link, and writes
 nothing when any of its outputs fails. Exit status: 0 no errors, 1 errors found, 2 usage error,
-refused output, or a failure.`;
+refused output, or a failure, 141 when the reader of the output stops early (| head).`;
 
 export interface CliIo {
   readonly out: (text: string) => void;

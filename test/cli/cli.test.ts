@@ -75,6 +75,23 @@ describe('vitrine CLI', () => {
     }
   });
 
+  it('check and analyze never load the report\'s libraries; report does', function () {
+    const bin = path.join(REPO, 'dist', 'cli.cjs');
+    const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'vitrine-libs-'));
+    after(() => fs.rmSync(dir, { recursive: true, force: true }));
+    // Says at exit whether the bundle of the report's libraries was required.
+    const hook = path.join(dir, 'hook.cjs');
+    fs.writeFileSync(hook, "process.on('exit', () => process.stderr.write('report libraries: ' + Object.keys(require.cache).some((f) => f.endsWith('cli-report-libs.cjs')) + '\\n'));\n");
+    const loaded = (args: string[]): string => {
+      const r = spawnSync(process.execPath, ['--require', hook, bin, ...args], { cwd: REPO, encoding: 'utf8' });
+      return /report libraries: (\w+)/.exec(r.stderr)?.[1] ?? r.stderr;
+    };
+    if (/Cannot find module/.test(loaded(['--version']))) this.skip();
+    assert.equal(loaded(['check', 'fixtures/demo', '--summary']), 'false');
+    assert.equal(loaded(['analyze', '--json', 'fixtures/demo']), 'false');
+    assert.equal(loaded(['report', 'fixtures/demo', '-o', path.join(dir, 'r.html')]), 'true');
+  });
+
   it('stops without a stack trace when the reader of its output goes away (| head)', async function () {
     const bin = path.join(REPO, 'dist', 'cli.cjs');
     // Output well beyond what a pipe holds (64 KB), so that writes go on after the reader has gone.

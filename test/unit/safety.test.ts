@@ -86,7 +86,18 @@ describe('terminalText and terminalJson: control characters are shown, not obeye
 
   it('writes the same JSON in pieces as whole, whatever the value', () => {
     const unsafe = fc.constantFrom('\x1b[2J', '\r', '\u202e', '\x9b', 'τ', '\n', '"', '\\');
-    const leaf = fc.oneof(fc.jsonValue({ maxDepth: 2 }), unsafe, fc.constant(undefined), fc.constant(Number.NaN), fc.constant(new Date(0)));
+    // Values JSON.stringify treats in its own ways: toJSON (given the key; giving undefined; giving
+    // an object with a toJSON of its own, not called), Number, String and Boolean objects.
+    const special = fc.constantFrom<unknown>(
+      new Date(0),
+      { toJSON: (key: string) => `key ${key}` },
+      { toJSON: () => undefined },
+      { toJSON: () => ({ toJSON: () => 'second', x: 1 }) },
+      new String('ab'),
+      new Number(3),
+      new Boolean(false),
+    );
+    const leaf = fc.oneof(fc.jsonValue({ maxDepth: 2 }), unsafe, fc.constant(undefined), fc.constant(Number.NaN), special);
     const value = fc.letrec((tie) => ({
       node: fc.oneof(
         { depthSize: 'small' },
