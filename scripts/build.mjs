@@ -36,7 +36,8 @@ const reportLibraries = {
 
 const common = { bundle: true, platform: 'node', target: 'node20', sourcemap: !release, minify: release, logLevel: 'warning' };
 // vega-canvas's Node build loads the optional native canvas with a top-level await; nothing here
-// draws on a canvas (SVG is drawn without one), so its canvas-free build serves every bundle.
+// draws on a canvas (SVG is drawn without one, PNG from the SVG), so its canvas-free build serves
+// every bundle, and labels are measured the same way whether that package is installed or not.
 const canvasFree = { 'vega-canvas': './node_modules/vega-canvas/build/vega-canvas.browser.js' };
 
 const built = await Promise.all([
