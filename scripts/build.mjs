@@ -18,18 +18,23 @@ const lazyYaml = {
   },
 };
 
-// The libraries of `vitrine report` (extension/cli/reportLibraries.ts) stay out of the command
-// line's bundle: their imports read the second bundle, required the first time the report's code
-// runs (esbuild runs a module reached by `import()` only then). A default export is taken as such.
-const REPORT_LIBRARIES = { vega: 'vega', 'vega-lite': 'vegaLite', unified: 'unified', 'remark-parse': 'remarkParse', 'remark-rehype': 'remarkRehype', 'rehype-sanitize': 'rehypeSanitize', 'rehype-stringify': 'rehypeStringify' };
-const DEFAULT_EXPORTS = new Set(['remark-parse', 'remark-rehype', 'rehype-sanitize', 'rehype-stringify']);
+// The libraries that only `vitrine report` uses (charts, their SVG drawing, the markdown renderer)
+// stay out of the command line's bundle, in dist/cli-report-libs.cjs, which this list makes (each
+// package under its name in camel case, as its namespace or its default export): their imports in
+// the report's code read that bundle, required the first time the report's code runs (esbuild runs
+// a module reached by `import()` only then), so `check` and `analyze` neither read nor compile them.
+const REPORT_LIBRARIES = { vega: 'namespace', 'vega-lite': 'namespace', unified: 'namespace', 'remark-parse': 'default', 'remark-rehype': 'default', 'rehype-sanitize': 'default', 'rehype-stringify': 'default' };
+const memberOf = (pkg) => pkg.replace(/-(\w)/g, (_, c) => c.toUpperCase());
+const reportLibrariesEntry = Object.entries(REPORT_LIBRARIES)
+  .map(([pkg, taken]) => (taken === 'default' ? `export { default as ${memberOf(pkg)} } from '${pkg}';` : `export * as ${memberOf(pkg)} from '${pkg}';`))
+  .join('\n');
 const reportLibraries = {
   name: 'report-libraries',
   setup(b) {
     b.onResolve({ filter: /^[a-z-]+$/ }, (args) => (args.path in REPORT_LIBRARIES ? { path: args.path, namespace: 'report-libraries' } : undefined));
     b.onLoad({ filter: /.*/, namespace: 'report-libraries' }, (args) => {
-      const member = `require('./cli-report-libs.cjs').${REPORT_LIBRARIES[args.path]}`;
-      return DEFAULT_EXPORTS.has(args.path) ? { contents: `export default ${member};`, loader: 'js' } : { contents: `module.exports = ${member};`, loader: 'js' };
+      const member = `require('./cli-report-libs.cjs').${memberOf(args.path)}`;
+      return REPORT_LIBRARIES[args.path] === 'default' ? { contents: `export default ${member};`, loader: 'js' } : { contents: `module.exports = ${member};`, loader: 'js' };
     });
   },
 };
@@ -56,7 +61,7 @@ const built = await Promise.all([
   }),
   build({
     ...common,
-    entryPoints: ['extension/cli/reportLibraries.ts'],
+    stdin: { contents: reportLibrariesEntry, resolveDir: '.', sourcefile: 'report-libraries.js', loader: 'js' },
     outfile: 'dist/cli-report-libs.cjs',
     format: 'cjs',
     alias: canvasFree,
